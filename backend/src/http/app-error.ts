@@ -1,0 +1,37 @@
+/** Error codes the API answers with; clients may branch on them, so keep them stable. */
+export type ErrorCode =
+  | 'validation_failed'
+  | 'malformed_body'
+  | 'payload_too_large'
+  | 'not_found'
+  | 'database_unavailable'
+  | 'internal_error';
+
+export interface AppErrorOptions {
+  readonly code: ErrorCode;
+  readonly status: number;
+  /** Safe to show to the user: never holds SQL, paths or stack traces. */
+  readonly message: string;
+  readonly details?: unknown;
+  /** The underlying failure, logged on the server and never sent to the client. */
+  readonly cause?: unknown;
+}
+
+/** The one error type the server throws on purpose; the error middleware turns it into a response. */
+export class AppError extends Error {
+  readonly code: ErrorCode;
+  readonly status: number;
+  readonly details: unknown;
+
+  constructor({ code, status, message, details, cause }: AppErrorOptions) {
+    super(message, { cause });
+    this.name = 'AppError';
+    this.code = code;
+    this.status = status;
+    this.details = details ?? null;
+  }
+
+  static notFound(message: string): AppError {
+    return new AppError({ code: 'not_found', status: 404, message });
+  }
+}

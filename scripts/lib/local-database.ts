@@ -1,0 +1,30 @@
+import path from 'node:path';
+import { createDatabase, migrationConfig, type Database } from '../../backend/src/db/database';
+import { runDataLoadOnce } from '../../backend/src/db/data-loads';
+import { seed as seedDemoStructures } from '../../seeds/demo-structures';
+import { DATA_DIR } from './project-paths';
+import { connectionUrl, ensureDatabase, startCluster, waitUntilAccepting, type ClusterSettings } from './postgres-cluster';
+
+export const DEMO_DATA_LOAD = 'demo-scenario';
+
+/** The project-local cluster used by `npm start`: kept between runs, durable defaults. */
+export function localClusterSettings(port: number): ClusterSettings {
+  return { dataDir: path.join(DATA_DIR, 'postgres'), port, disposable: false };
+}
+
+/** Brings the schema up to date and loads the demo scenario once. */
+export async function prepareDatabase(db: Database, { loadDemo }: { loadDemo: boolean }): Promise<{ migrations: string[]; demoLoaded: boolean }> {
+  const [, migrations] = (await db.migrate.latest(migrationConfig)) as [number, string[]];
+  const demoLoaded = loadDemo ? await runDataLoadOnce(db, DEMO_DATA_LOAD, seedDemoStructures) : false;
+  return { migrations, demoLoaded };
+}
+
+/** Starts (or creates) the local cluster and its database, and returns its connection string. */
+export async function bringUpLocalDatabase(settings: ClusterSettings, databaseName: string): Promise<{ url: string; created: boolean; alreadyRunning: boolean }> {
+  const state = await startCluster(settings);
+  await waitUntilAccepting(settings.port);
+  await ensureDatabase(settings.port, databaseName);
+  return { url: connectionUrl(settings.port, databaseName), ...state };
+}
+
+export { createDatabase };

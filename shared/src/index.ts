@@ -1,0 +1,2 @@
+/** The public API of Spanledger's shared code: what is not exported here is private. */
+export * from './structures';

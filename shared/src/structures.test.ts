@@ -1,0 +1,39 @@
+import { bboxParameter, structureMapQuery } from './structures';
+
+describe('bboxParameter', () => {
+  it('reads west, south, east, north in that order', () => {
+    expect(bboxParameter.parse('-99.5,37.25,-96,39')).toEqual({ minLon: -99.5, minLat: 37.25, maxLon: -96, maxLat: 39 });
+  });
+
+  it.each([
+    ['', /four numbers/],
+    ['1,2,3', /four numbers/],
+    ['1,2,3,4,5', /four numbers/],
+    ['1,,3,4', /four numbers/],
+    ['a,2,3,4', /four numbers/],
+    ['-181,0,10,10', /longitudes/],
+    ['0,-91,10,10', /latitudes/],
+    ['10,0,5,10', /minLon must be less than maxLon/],
+    ['0,10,10,10', /minLat must be less than maxLat/],
+  ])('refuses %p', (text, message) => {
+    const result = bboxParameter.safeParse(text);
+    expect(result.success).toBe(false);
+    expect(result.error?.issues[0]?.message).toMatch(message);
+  });
+});
+
+describe('structureMapQuery', () => {
+  it('defaults the limit and leaves the box open', () => {
+    expect(structureMapQuery.parse({})).toEqual({ limit: 1000 });
+  });
+
+  it('reads the limit as a whole number within range', () => {
+    expect(structureMapQuery.parse({ limit: '250' }).limit).toBe(250);
+    expect(structureMapQuery.safeParse({ limit: '2.5' }).success).toBe(false);
+    expect(structureMapQuery.safeParse({ limit: '5001' }).success).toBe(false);
+  });
+
+  it('rejects parameters it does not know', () => {
+    expect(structureMapQuery.safeParse({ sort: 'name' }).success).toBe(false);
+  });
+});

@@ -1,0 +1,44 @@
+import { runDataLoadOnce } from '../../backend/src/db/data-loads';
+import { DEMO_DATA_LOAD } from '../../scripts/lib/local-database';
+import { seed as seedDemoStructures } from '../../seeds/demo-structures';
+import { createTestDatabase, type TestDatabase } from '../support/test-database';
+
+describe('the demo scenario', () => {
+  let testDb: TestDatabase;
+  beforeAll(async () => {
+    testDb = await createTestDatabase();
+  });
+  afterAll(() => testDb.drop());
+
+  const countStructures = async () => Number((await testDb.db('structures').count<{ count: string }[]>('* as count'))[0]?.count);
+
+  it('loads once: a second start changes nothing', async () => {
+    expect(await runDataLoadOnce(testDb.db, DEMO_DATA_LOAD, seedDemoStructures)).toBe(true);
+    const first = await countStructures();
+    expect(await runDataLoadOnce(testDb.db, DEMO_DATA_LOAD, seedDemoStructures)).toBe(false);
+    expect(await countStructures()).toBe(first);
+  });
+
+  it('has at least 40 structures in three or four districts', async () => {
+    expect(await countStructures()).toBeGreaterThanOrEqual(40);
+    const districts = await testDb.db('structures').distinct('district');
+    expect(districts.length).toBeGreaterThanOrEqual(3);
+    expect(districts.length).toBeLessThanOrEqual(4);
+  });
+
+  it('places every structure inside one region of the basemap (the Kansas state outline)', async () => {
+    // The outline of state FIPS 20 in us-atlas states-10m, the basemap the app ships.
+    const atlas = require('us-atlas/states-10m.json');
+    const { feature } = require('topojson-client');
+    const kansas = feature(atlas, atlas.objects.states).features.find((state: { id: string }) => state.id === '20');
+    const outside = await testDb.db('structures')
+      .whereRaw('not ST_Contains(ST_SetSRID(ST_GeomFromGeoJSON(?), 4326), location)', [JSON.stringify(kansas.geometry)])
+      .pluck('structure_number');
+    expect(outside).toEqual([]);
+  });
+
+  it('leaves a failed load unrecorded so that it is tried again', async () => {
+    await expect(runDataLoadOnce(testDb.db, 'broken-load', async () => Promise.reject(new Error('boom')))).rejects.toThrow('boom');
+    expect(await testDb.db('data_loads').where({ name: 'broken-load' }).first()).toBeUndefined();
+  });
+});

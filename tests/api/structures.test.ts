@@ -1,0 +1,96 @@
+import request from 'supertest';
+import type { Express } from 'express';
+import type { StructureFeatureCollection } from '@spanledger/shared';
+import { createTestApp } from '../support/test-app';
+import { createTestDatabase, type TestDatabase } from '../support/test-database';
+
+/** Three structures far apart, so that a box can hold any one of them. Invented test data. */
+const STRUCTURES = [
+  { structure_number: 'T-001', name: 'West bridge', district: 'West', lon: -99.0, lat: 38.0 },
+  { structure_number: 'T-002', name: 'Middle bridge', district: 'Middle', lon: -98.0, lat: 38.5 },
+  { structure_number: 'T-003', name: 'East bridge', district: 'East', lon: -97.0, lat: 39.0 },
+];
+
+describe('GET /api/structures', () => {
+  let testDb: TestDatabase;
+  let app: Express;
+
+  beforeAll(async () => {
+    testDb = await createTestDatabase();
+    app = createTestApp(testDb.db);
+    await testDb.db('structures').insert(
+      STRUCTURES.map(({ lon, lat, ...row }) => ({
+        ...row,
+        route_carried: 'Route 1',
+        feature_crossed: 'Test Creek',
+        year_built: 1975,
+        adt: 1200,
+        adtt: 120,
+        location: testDb.db.raw('ST_SetSRID(ST_MakePoint(?, ?), 4326)', [lon, lat]),
+      })),
+    );
+  });
+  afterAll(() => testDb.drop());
+
+  const numbersOf = (body: StructureFeatureCollection) => body.features.map((f) => f.properties.structureNumber);
+
+  it('returns every structure as a GeoJSON FeatureCollection in structure-number order', async () => {
+    const response = await request(app).get('/api/structures').expect(200).expect('Content-Type', /application\/geo\+json/);
+    const body = response.body as StructureFeatureCollection;
+    expect(body.type).toBe('FeatureCollection');
+    expect(body.truncated).toBe(false);
+    expect(numbersOf(body)).toEqual(['T-001', 'T-002', 'T-003']);
+    expect(body.features[0]).toEqual({
+      type: 'Feature',
+      id: expect.any(Number),
+      geometry: { type: 'Point', coordinates: [-99, 38] },
+      properties: {
+        id: body.features[0]?.id,
+        structureNumber: 'T-001',
+        name: 'West bridge',
+        routeCarried: 'Route 1',
+        featureCrossed: 'Test Creek',
+        district: 'West',
+        yearBuilt: 1975,
+        adt: 1200,
+        adtt: 120,
+      },
+    });
+  });
+
+  it('keeps only the structures inside the bounding box', async () => {
+    const response = await request(app).get('/api/structures').query({ bbox: '-98.5,38.2,-97.5,38.8' }).expect(200);
+    expect(numbersOf(response.body)).toEqual(['T-002']);
+  });
+
+  it('returns an empty collection for a box with nothing in it', async () => {
+    const response = await request(app).get('/api/structures').query({ bbox: '10,10,11,11' }).expect(200);
+    expect(response.body).toEqual({ type: 'FeatureCollection', truncated: false, features: [] });
+  });
+
+  it('cuts the list at the limit and says so', async () => {
+    const response = await request(app).get('/api/structures').query({ limit: '2' }).expect(200);
+    expect(numbersOf(response.body)).toEqual(['T-001', 'T-002']);
+    expect(response.body.truncated).toBe(true);
+  });
+
+  it.each([
+    ['bbox', '1,2,3', /bbox: expected four numbers/],
+    ['bbox', '1,2,x,4', /bbox: expected four numbers/],
+    ['bbox', '-98,38,-99,39', /bbox: minLon must be less than maxLon/],
+    ['bbox', '-98,95,-97,96', /bbox: latitudes must lie between -90 and 90/],
+    ['limit', 'ten', /limit: expected a whole number/],
+    ['limit', '0', /limit: .*>=\s*1/],
+    ['limit', '5001', /limit: .*<=\s*5000/],
+  ])('answers 400 naming %s when it is %p', async (parameter, value, message) => {
+    const response = await request(app).get('/api/structures').query({ [parameter]: value }).expect(400);
+    expect(response.body.error.code).toBe('validation_failed');
+    expect(response.body.error.message).toMatch(message);
+    expect(response.body.error.details.fields).toEqual([{ field: parameter, message: expect.any(String) }]);
+  });
+
+  it('answers 400 for a parameter it does not know', async () => {
+    const response = await request(app).get('/api/structures').query({ box: '1,2,3,4' }).expect(400);
+    expect(response.body.error.details.fields).toEqual([{ field: 'box', message: 'unknown query parameter' }]);
+  });
+});
