@@ -15,7 +15,7 @@ async function prepare(config: AppConfig, cluster: ClusterSettings, databaseName
   await ensureSystemPackages({ forTests: false });
   const database = await bringUpLocalDatabase(cluster, databaseName);
   console.log(`${database.created ? 'Created' : 'Using'} the project database cluster in ${cluster.dataDir} on 127.0.0.1:${cluster.port}`);
-  const db = createDatabase(database.url, { min: 0, max: 2 });
+  const db = createDatabase(config.databaseUrl, { min: 0, max: 2 });
   try {
     const { migrations, demoLoaded } = await prepareDatabase(db, { loadDemo });
     if (migrations.length > 0) console.log(`Applied ${migrations.length} migration(s)`);
@@ -24,11 +24,14 @@ async function prepare(config: AppConfig, cluster: ClusterSettings, databaseName
     await db.destroy();
   }
   await buildFrontendIfChanged();
-  return { ...config, databaseUrl: process.env.DATABASE_URL ? config.databaseUrl : database.url };
+  return config;
 }
 
 async function main(): Promise<void> {
   const config = loadConfig();
+  if (process.env.DATABASE_URL) {
+    throw new Error('npm start runs its own database cluster: unset DATABASE_URL, or run the server alone with `node --import tsx backend/src/main.ts`');
+  }
   const dbSettings = new URL(config.databaseUrl);
   const cluster = localClusterSettings(Number(dbSettings.port));
   const databaseName = dbSettings.pathname.slice(1);
@@ -62,4 +65,7 @@ async function main(): Promise<void> {
   console.log(`\nSpanledger is running at ${server.url}  (Ctrl-C to stop)\n`);
 }
 
-void main();
+main().catch((error: unknown) => {
+  console.error(error instanceof Error ? error.message : String(error));
+  process.exit(1);
+});
