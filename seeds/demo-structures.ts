@@ -12,13 +12,15 @@ interface DistrictArea {
   /** West, south, east, north in degrees. */
   readonly area: readonly [number, number, number, number];
   readonly routes: readonly string[];
+  /** Invented towns, for the bridge names an owner's staff would use. */
+  readonly towns: readonly string[];
 }
 
 const DISTRICTS: readonly DistrictArea[] = [
-  { name: 'North District', code: 'N', area: [-99.5, 38.9, -97.5, 39.5], routes: ['Route 9', 'Route 24', 'County Road 110', 'County Road 131'] },
-  { name: 'Central District', code: 'C', area: [-99.5, 38.2, -97.8, 38.85], routes: ['Route 4', 'Route 56', 'County Road 205', 'County Road 240'] },
-  { name: 'South District', code: 'S', area: [-99.5, 37.55, -97.5, 38.15], routes: ['Route 61', 'Route 96', 'County Road 318', 'County Road 342'] },
-  { name: 'East District', code: 'E', area: [-97.4, 37.6, -96.6, 39.4], routes: ['Route 15', 'Route 77', 'County Road 412', 'County Road 455'] },
+  { name: 'North District', code: 'N', area: [-99.5, 38.9, -97.5, 39.5], routes: ['Route 9', 'Route 24', 'County Road 110', 'County Road 131'], towns: ['Harlow', 'Wendt', 'Osgood'] },
+  { name: 'Central District', code: 'C', area: [-99.5, 38.2, -97.8, 38.85], routes: ['Route 4', 'Route 56', 'County Road 205', 'County Road 240'], towns: ['Marden', 'Tillby', 'Carrow'] },
+  { name: 'South District', code: 'S', area: [-99.5, 37.55, -97.5, 38.15], routes: ['Route 61', 'Route 96', 'County Road 318', 'County Road 342'], towns: ['Fenwick', 'Aldis', 'Brisco'] },
+  { name: 'East District', code: 'E', area: [-97.4, 37.6, -96.6, 39.4], routes: ['Route 15', 'Route 77', 'County Road 412', 'County Road 455'], towns: ['Quarry Hill', 'Lanning', 'Ostrow'] },
 ];
 
 const CROSSINGS = [
@@ -63,7 +65,7 @@ export function demoStructures(): DemoStructure[] {
       const adt = Math.round(between(400, 18000) / 10) * 10;
       return {
         structure_number: `BV-${district.code}-${String(101 + index * 7).padStart(4, '0')}`,
-        name: `${route} over ${crossing}`,
+        name: `${crossing} Bridge near ${district.towns[index % district.towns.length]}`,
         route_carried: route,
         feature_crossed: crossing,
         district: district.name,

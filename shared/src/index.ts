@@ -1,2 +1,3 @@
 /** The public API of Spanledger's shared code: what is not exported here is private. */
 export * from './structures';
+export * from './client-config';

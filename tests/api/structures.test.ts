@@ -1,6 +1,6 @@
 import request from 'supertest';
 import type { Express } from 'express';
-import type { StructureFeatureCollection } from '@spanledger/shared';
+import type { StructureFeatureCollection } from '../../shared/src';
 import { createTestApp } from '../support/test-app';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
 

@@ -1,8 +1,8 @@
 import fs from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
-import type { StructureFeatureCollection } from '@spanledger/shared';
+import type { StructureFeatureCollection } from '../../shared/src';
 import { APP_URL_VARIABLE } from '../support/browser-global-setup';
-import { launchBrowser, recordRequests, saveScreenshot } from '../support/browser';
+import { launchBrowser, recordPageErrors, recordRequests, saveScreenshot } from '../support/browser';
 
 const appUrl = () => {
   const url = process.env[APP_URL_VARIABLE];
@@ -46,7 +46,10 @@ describe('network map journey', () => {
   it('shows the demo structures on the map and the same structures in the list, with no request leaving 127.0.0.1', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
     const requests = recordRequests(page);
+    const pageErrors = recordPageErrors(page);
+    const basemap = page.waitForResponse((response) => response.url().endsWith('/basemap/states-10m.json') && response.ok());
     await page.goto(appUrl());
+    await basemap;
 
     await page.getByText('Spanledger').first().waitFor();
     expect(demoStructureNumbers.length).toBeGreaterThanOrEqual(40);
@@ -59,6 +62,7 @@ describe('network map journey', () => {
     const hosts = new Set(requests.filter((url) => /^https?:/.test(url)).map((url) => new URL(url).hostname));
     expect([...hosts]).toEqual(['127.0.0.1']);
     expect(requests.some((url) => url.includes('/api/structures'))).toBe(true);
+    expect(pageErrors).toEqual([]);
     await page.close();
   });
 

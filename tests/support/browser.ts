@@ -22,6 +22,16 @@ export function recordRequests(page: Page): string[] {
   return urls;
 }
 
+/** Console errors and uncaught exceptions, such as a content-security-policy violation. */
+export function recordPageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('console', (message) => {
+    if (message.type() === 'error') errors.push(message.text());
+  });
+  page.on('pageerror', (error) => errors.push(error.message));
+  return errors;
+}
+
 export async function saveScreenshot(page: Page, name: string): Promise<string> {
   fs.mkdirSync(SCREENSHOT_DIR, { recursive: true });
   const file = path.join(SCREENSHOT_DIR, `${name}.png`);

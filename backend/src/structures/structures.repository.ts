@@ -1,4 +1,4 @@
-import type { BoundingBox } from '@spanledger/shared';
+import type { BoundingBox } from '../../../shared/src';
 import { postgis, type Database } from '../db/database';
 
 /** One row of `structures` as the map needs it, with the location split into degrees. */

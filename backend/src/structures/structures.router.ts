@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { structureMapQuery } from '@spanledger/shared';
+import { structureMapQuery } from '../../../shared/src';
 import type { Database } from '../db/database';
 import { parseRequest } from '../http/validate';
 import { listStructuresForMap } from './structures.service';

@@ -1,4 +1,4 @@
-import type { StructureFeature, StructureFeatureCollection, StructureMapQuery } from '@spanledger/shared';
+import type { StructureFeature, StructureFeatureCollection, StructureMapQuery } from '../../../shared/src';
 import type { Database } from '../db/database';
 import { findStructuresForMap, type StructureMapRow } from './structures.repository';
 
