@@ -1,3 +1,7 @@
 /** The public API of Spanledger's shared code: what is not exported here is private. */
 export * from './structures';
 export * from './client-config';
+export * from './units';
+export * from './engine/geometry';
+export * from './engine/section';
+export * from './engine/materials';
