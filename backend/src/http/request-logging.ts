@@ -19,6 +19,8 @@ export function requestLogging(logger: Logger) {
   return pinoHttp({
     logger,
     genReqId: requestIdFor,
+    // Lines logged through req.log carry only the id; the completion line also has req and res.
+    quietReqLogger: true,
     customAttributeKeys: { reqId: 'requestId' },
     serializers: {
       req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
