@@ -5,3 +5,6 @@ export * from './units';
 export * from './engine/geometry';
 export * from './engine/section';
 export * from './engine/materials';
+export * from './engine/calc-file';
+export * from './engine/capacity';
+export { RESULT_CAUTION } from './engine/caution';

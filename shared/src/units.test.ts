@@ -118,7 +118,8 @@ describe('convert', () => {
       fc.property(
         fc.constantFrom(...units),
         fc.constantFrom(...units),
-        fc.double({ min: -1e9, max: 1e9, noNaN: true }),
+        // Subnormal inputs would underflow through mm⁴ ↔ m⁴ (a factor of 1e−12); no quantity of a bridge is that small.
+        fc.double({ min: -1e9, max: 1e9, noNaN: true }).filter((value) => value === 0 || Math.abs(value) > 1e-200),
         (fromUnit, toUnit, value) => {
           expectRelativelyClose(untypedConvert(untypedConvert(value, fromUnit, toUnit), toUnit, fromUnit), value);
         },
