@@ -20,6 +20,7 @@ module.exports = {
   projects: [
     nodeProject('shared', ['<rootDir>/shared']),
     nodeProject('backend', ['<rootDir>/backend']),
+    nodeProject('cli', ['<rootDir>/tests/cli'], { testTimeout: 30000 }),
     nodeProject('api', ['<rootDir>/tests/api'], {
       globalSetup: '<rootDir>/tests/support/api-global-setup.ts',
       globalTeardown: '<rootDir>/tests/support/global-teardown.ts',

@@ -104,6 +104,9 @@ function concreteDamageIssues(file: { girder: Girder; damage: readonly DamageEnt
   let deckLossMm = 0;
   file.damage.forEach((entry, index) => {
     const path = `damage[${index}]`;
+    if (entry.fromM !== undefined && entry.toM !== undefined && entry.fromM > entry.toM) {
+      issues.push({ path: `${path}.toM`, message: `must not be less than fromM (${entry.fromM})` });
+    }
     if (entry.kind === 'deck-loss') {
       deckLossMm += entry.thicknessMm;
       if (file.girder.deck === undefined) issues.push({ path: `${path}.thicknessMm`, message: 'deck loss on a girder without a deck' });

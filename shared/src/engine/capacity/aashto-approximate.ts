@@ -283,7 +283,7 @@ function rowResults(layers: readonly StrandLayer[], steel: TensionSteel, equilib
     const stressMpa = layer.bonded
       ? meanStressMpa(bondedAreaMm2(layer), bondedMpa, layer.exposedAreaMm2, layer.fpeMpa)
       : unbondedTendonStressMpa(layer, c);
-    return { rowId: layer.rowId, yMm: layer.yMm, effectiveStrands: layer.areaMm2 / layer.strandAreaMm2, totalStrain: null, stressMpa };
+    return { rowId: layer.rowId, yMm: layer.yMm, effectiveStrands: layer.effectiveStrands, totalStrain: null, stressMpa };
   });
 }
 
@@ -305,7 +305,7 @@ function withoutTensionSteel(model: SectionModel, warnings: string[]): FlexuralS
     rows: model.strands.map((layer) => ({
       rowId: layer.rowId,
       yMm: layer.yMm,
-      effectiveStrands: layer.areaMm2 / layer.strandAreaMm2,
+      effectiveStrands: layer.effectiveStrands,
       totalStrain: null,
       stressMpa: 0,
     })),

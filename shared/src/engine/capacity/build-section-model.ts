@@ -1,4 +1,4 @@
-import type { PolygonMm } from '../geometry';
+import { polygonContainsPointMm, widthAtMm, type PolygonMm } from '../geometry';
 import { ELASTIC_MODULUS_BASIS, elasticModulusMpa, type ElasticModulusFormula } from '../materials';
 import { buildCompositeSection, flatTopWidthMm, sectionDepthMm, shapeToPolygons, transformedSectionProperties, type SectionShape } from '../section';
 import { concreteLossPolygon } from '../calc-file/capacity-file';
@@ -35,19 +35,35 @@ function totalDeckLossMm(damage: readonly DamageEntry[]): number {
   return damage.reduce((sum, entry) => (entry.kind === 'deck-loss' ? sum + entry.thicknessMm : sum), 0);
 }
 
-function concreteLossPolygons(damage: readonly DamageEntry[]): PolygonMm[] {
-  return damage.flatMap((entry) => (entry.kind === 'concrete-loss' ? [concreteLossPolygon(entry)!] : []));
+function concreteLossPolygons(damage: readonly DamageEntry[]): { polygon: PolygonMm; damageIndex: number }[] {
+  return damage.flatMap((entry, damageIndex) => (entry.kind === 'concrete-loss' ? [{ polygon: concreteLossPolygon(entry)!, damageIndex }] : []));
+}
+
+/**
+ * Strands inside spalled concrete have lost their bond there, which a spall entry alone does
+ * not say: the inspector records them as exposed or lost strands. Rows without strand
+ * positions are flagged when the spall reaches their height at all.
+ */
+function strandsInSpallWarnings(rows: readonly StrandRow[], losses: readonly { polygon: PolygonMm; damageIndex: number }[]): string[] {
+  return losses.flatMap(({ polygon, damageIndex }) =>
+    rows.flatMap((row) => {
+      const reached = row.xMm ? row.xMm.some((x) => polygonContainsPointMm(polygon, [x, row.yMm])) : widthAtMm(polygon, row.yMm) > 0;
+      return reached
+        ? [`strand row "${row.id}" lies in the spalled concrete of damage[${damageIndex}]: record its strands there as exposed-strands or lost-strands entries`]
+        : [];
+    }),
+  );
 }
 
 /** The strands that remain of one row, as one layer: lost strands out, section loss off their area. */
 function strandLayer(row: StrandRow, index: number, states: readonly StrandState[], topYMm: number): StrandLayer {
-  let areaMm2 = 0;
-  let exposedAreaMm2 = 0;
+  // Counted in strands, then multiplied once, so that ten whole strands are exactly ten.
+  let effectiveStrands = 0;
+  let exposedStrands = 0;
   for (const state of states) {
     if (state.lost) continue;
-    const strandArea = row.strandAreaMm2 * state.areaFactor;
-    areaMm2 += strandArea;
-    if (state.exposed) exposedAreaMm2 += strandArea;
+    effectiveStrands += state.areaFactor;
+    if (state.exposed) exposedStrands += state.areaFactor;
   }
   return {
     rowId: row.id,
@@ -57,8 +73,9 @@ function strandLayer(row: StrandRow, index: number, states: readonly StrandState
     strandAreaMm2: row.strandAreaMm2,
     strandDiameterMm: row.strandDiameterMm,
     originalCount: row.count,
-    areaMm2,
-    exposedAreaMm2,
+    effectiveStrands,
+    areaMm2: effectiveStrands * row.strandAreaMm2,
+    exposedAreaMm2: exposedStrands * row.strandAreaMm2,
     material: { epsMpa: row.epsMpa, fpuMpa: row.fpuMpa, fpyMpa: row.fpyMpa },
     fpeMpa: row.fpeMpa ?? 0,
     bonded: row.bonded,
@@ -117,7 +134,8 @@ export function buildSectionModel(input: SectionModelInput): SectionModel {
   const girderPolygons = shapeToPolygons(girder.section);
   const girderTopYMm = sectionDepthMm(girder.section);
   const girderConcrete = concreteMaterial(girder.concrete, options.elasticModulusFormula, girder.concrete.unitWeightKnM3);
-  const lossPolygons = concreteLossPolygons(damage);
+  const losses = concreteLossPolygons(damage);
+  const lossPolygons = losses.map((loss) => loss.polygon);
   const netGirderParts = [
     { polygons: girderPolygons, modularRatio: 1 },
     ...(lossPolygons.length > 0 ? [{ polygons: lossPolygons, modularRatio: -1 }] : []),
@@ -171,5 +189,6 @@ export function buildSectionModel(input: SectionModelInput): SectionModel {
     fyMpa: bar.fyMpa,
     esMpa: bar.esMpa,
   }));
-  return { topYMm, girderTopYMm, regions, strands, bars, girderConcrete, deckConcrete, girderSection, compositeSection, compressionFlange, tensioning: girder.tensioning };
+  const warnings = strandsInSpallWarnings(girder.strandRows, losses);
+  return { topYMm, girderTopYMm, regions, strands, bars, girderConcrete, deckConcrete, girderSection, compositeSection, compressionFlange, tensioning: girder.tensioning, warnings };
 }

@@ -51,6 +51,7 @@ export function computeCapacity(file: CapacityFile): CapacityOutput {
   const strength = strengthBy(model, file.options);
   return {
     ...strength,
+    warnings: [...model.warnings, ...strength.warnings],
     girderSection: propertiesOutput(model.girderSection),
     ...(model.compositeSection ? { compositeSection: propertiesOutput(model.compositeSection) } : {}),
     signConvention: 'stresses and strains: tension positive',

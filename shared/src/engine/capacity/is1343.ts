@@ -214,7 +214,7 @@ function strengthResult(model: SectionModel, strength: TableStrength, momentNmm:
     rows: model.strands.map((layer) => ({
       rowId: layer.rowId,
       yMm: layer.yMm,
-      effectiveStrands: layer.areaMm2 / layer.strandAreaMm2,
+      effectiveStrands: layer.effectiveStrands,
       totalStrain: null,
       stressMpa: layer.areaMm2 > 0 ? (strength.fpbMpa * (layer.areaMm2 - layer.exposedAreaMm2)) / layer.areaMm2 : strength.fpbMpa,
     })),

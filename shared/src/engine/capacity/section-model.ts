@@ -36,6 +36,8 @@ export interface StrandLayer {
   readonly strandAreaMm2: number;
   readonly strandDiameterMm: number;
   readonly originalCount: number;
+  /** Strands that remain, section loss counted as a fraction of a strand: effective area ÷ one strand's area. */
+  readonly effectiveStrands: number;
   /** Area of the strands that remain, net of lost strands and section loss. */
   readonly areaMm2: number;
   /** Part of `areaMm2` whose bond is lost (exposed strands): its stress is capped at fpe. */
@@ -88,6 +90,8 @@ export interface SectionModel {
   readonly compositeSection: SectionProperties | null;
   readonly compressionFlange: CompressionFlange | null;
   readonly tensioning: 'pre' | 'post';
+  /** What the builder noticed about the damage, for the result's warnings. */
+  readonly warnings: readonly string[];
 }
 
 /** Concrete at the top fibre: the deck's when there is one, which sets β1 of the whole block. */

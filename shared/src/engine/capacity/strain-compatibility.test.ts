@@ -184,3 +184,25 @@ describe('other steel', () => {
     expect(result.rows[0]?.totalStrain).toBeNull();
   });
 });
+
+describe('damage the section cannot carry', () => {
+  it('gives zero strength, not an error, when every strand is lost', () => {
+    const result = capacityOf(rectangleFile({ damage: [{ kind: 'lost-strands', rowId: 'r1', count: 6 }, { kind: 'lost-strands', rowId: 'r2', count: 4 }] }));
+    expect(result.nominalMomentKnm).toBe(0);
+    expect(result.warnings).toContain('no tension steel remains at this section: its flexural strength is zero');
+  });
+
+  it('warns when a spall reaches a strand row, since the spall alone does not record the lost bond', () => {
+    const result = capacityOf(rectangleFile({ damage: [{ kind: 'concrete-loss', bottomFlange: { depthMm: 80, widthMm: 400 } }] }));
+    expect(result.warnings.some((warning) => warning.startsWith('strand row "r1" lies in the spalled concrete of damage[0]'))).toBe(true);
+    expect(result.warnings.some((warning) => warning.startsWith('strand row "r2"'))).toBe(false);
+  });
+
+  it('applies no resistance factor over the IS design curves, which carry the partial factors', () => {
+    const file = rectangleFile({ options: { concreteModel: 'is1343', strandCurve: 'is1343', elasticModulusFormula: 'is-456' } }) as { girder: { concrete: { basis: string } } };
+    file.girder.concrete.basis = 'cube';
+    const result = capacityOf(file);
+    expect(result.phi).toBe(1);
+    expect(result.factoredMomentKnm).toBe(result.nominalMomentKnm);
+  });
+});

@@ -206,9 +206,9 @@ function solveNeutralAxis(model: SectionModel, strands: readonly PreparedStrand[
   let atLow = residual(low);
   let atHigh = residual(high);
   if (atHigh.value > 0) {
-    throw new EngineInputError('girder', 'the steel force exceeds what the whole concrete section can balance: check the strand rows and the concrete');
+    throw new EngineInputError('girder.strandRows', 'the steel force exceeds what the whole concrete section can balance: check the strand rows and the concrete');
   }
-  if (atLow.value < 0) throw new EngineInputError('girder', 'no tension steel below the compression zone: check the strand and bar heights');
+  if (atLow.value < 0) throw new EngineInputError('girder.strandRows', 'no tension steel below the compression zone: check the strand and bar heights');
   let side = 0;
   for (let iteration = 0; iteration < MAX_ITERATIONS; iteration++) {
     const c = (low * atHigh.value - high * atLow.value) / (atHigh.value - atLow.value);
@@ -237,7 +237,7 @@ function rowResults(strands: readonly PreparedStrand[], c: number, ultimateStrai
     return {
       rowId: layer.rowId,
       yMm: layer.yMm,
-      effectiveStrands: layer.areaMm2 / layer.strandAreaMm2,
+      effectiveStrands: layer.effectiveStrands,
       totalStrain,
       stressMpa: layer.areaMm2 > 0 ? force / layer.areaMm2 : 0,
     };
@@ -252,6 +252,7 @@ function rowResults(strands: readonly PreparedStrand[], c: number, ultimateStrai
  * deducted (its effect is well under the precision of the inputs).
  */
 export function strainCompatibilityStrength(model: SectionModel, options: StrainCompatibilityOptions): FlexuralStrength {
+  if (!hasTensionSteel(model)) return noSteelLeft(model);
   const strands = prepareStrands(model, options.strandCurve);
   const concrete = concreteModelFor(model, options.concreteModel);
   const { c, forces } = solveNeutralAxis(model, strands, concrete);
@@ -262,7 +263,9 @@ export function strainCompatibilityStrength(model: SectionModel, options: Strain
   const tensionSteelDepths = [...model.strands.filter((s) => s.areaMm2 > 0).map((s) => s.dpMm), ...model.bars.map((b) => b.dMm)];
   const extremeDepthMm = Math.max(...tensionSteelDepths);
   const extremeTensionStrain = (concrete.ultimateStrain * (extremeDepthMm - c)) / c;
-  const phi = flexureResistanceFactor(extremeTensionStrain, model.strands.some((s) => s.areaMm2 > 0) ? 'prestressed' : 'reinforced');
+  // The IS design curves already carry the material partial factors (IS 456/1343 [R]), so no φ goes on top.
+  const phi =
+    options.concreteModel === 'is1343' ? 1 : flexureResistanceFactor(extremeTensionStrain, model.strands.some((s) => s.areaMm2 > 0) ? 'prestressed' : 'reinforced');
   const rows = rowResults(strands, c, concrete.ultimateStrain);
   return {
     method: 'strain-compatibility',
@@ -274,9 +277,11 @@ export function strainCompatibilityStrength(model: SectionModel, options: Strain
     extremeTensionStrain,
     rows,
     relativeForceResidual: Math.abs(forces.tensionN - forces.compressionN) / forces.tensionN,
-    warnings: strandWarnings(rows, model),
+    warnings: [...strandWarnings(rows, model), ...(options.concreteModel === 'is1343' ? [IS_CURVES_PHI_NOTE] : [])],
   };
 }
+
+const IS_CURVES_PHI_NOTE = 'the IS design stress curves already include the material partial factors, so phi is 1.0';
 
 function strandWarnings(rows: readonly StrandRowResult[], model: SectionModel): string[] {
   const warnings: string[] = [];
@@ -284,5 +289,28 @@ function strandWarnings(rows: readonly StrandRowResult[], model: SectionModel): 
     if (row.stressMpa < 0) warnings.push(`strand row "${row.rowId}" is in compression at nominal strength`);
   }
   if (model.strands.some((s) => s.exposedAreaMm2 > 0)) warnings.push('exposed strands are limited to their effective prestress fpe at this section');
+  if (model.strands.some((s) => !s.bonded)) {
+    warnings.push('unbonded tendons use le = unbondedLengthMm as given; the 2 li/(2 + Ns) reduction for continuous tendons is not applied');
+  }
   return warnings;
+}
+
+function hasTensionSteel(model: SectionModel): boolean {
+  return model.strands.some((layer) => layer.areaMm2 > 0) || model.bars.length > 0;
+}
+
+/** Every strand lost at this section and no bars: nothing to balance the concrete, so no flexural strength. */
+function noSteelLeft(model: SectionModel): FlexuralStrength {
+  return {
+    method: 'strain-compatibility',
+    neutralAxisDepthMm: 0,
+    blockDepthMm: null,
+    nominalMomentKnm: 0,
+    phi: 1,
+    factoredMomentKnm: 0,
+    extremeTensionStrain: null,
+    rows: model.strands.map((layer) => ({ rowId: layer.rowId, yMm: layer.yMm, effectiveStrands: 0, totalStrain: null, stressMpa: 0 })),
+    relativeForceResidual: 0,
+    warnings: ['no tension steel remains at this section: its flexural strength is zero'],
+  };
 }

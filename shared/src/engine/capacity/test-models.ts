@@ -79,6 +79,7 @@ export function testSectionModel(spec: TestModelSpec): SectionModel {
     compositeSection: composite?.properties ?? null,
     compressionFlange: compressionFlange(spec),
     tensioning: spec.tensioning ?? 'pre',
+    warnings: [],
   };
 }
 
@@ -145,6 +146,7 @@ function strandLayer(row: TestStrandRow, index: number, topYMm: number): StrandL
     strandAreaMm2,
     strandDiameterMm: 12.7,
     originalCount: row.count,
+    effectiveStrands: row.count,
     areaMm2: row.count * strandAreaMm2,
     exposedAreaMm2: (row.exposedCount ?? 0) * strandAreaMm2,
     material: { epsMpa: 196_500, fpuMpa, fpyMpa: row.fpyMpa ?? 0.9 * fpuMpa },
