@@ -85,8 +85,13 @@ describe('spanledger capacity on bad input', () => {
     expectBadInput(await runSpanledger(['capacity', '-'], file), /^options\.method: the AASHTO approximate method needs/);
   });
 
-  it('"rate" is not a command of this version', async () => {
+  it('an unknown command', async () => {
+    const run = await runSpanledger(['design', 'examples/rectangle-two-rows.json']);
+    expectBadInput(run, 'spanledger: unknown command "design"');
+  });
+
+  it('a capacity file given to rate names what a rating needs', async () => {
     const run = await runSpanledger(['rate', 'examples/rectangle-two-rows.json']);
-    expectBadInput(run, 'spanledger: unknown command "rate"');
+    expectBadInput(run, /^span: /m);
   });
 });

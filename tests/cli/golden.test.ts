@@ -1,5 +1,5 @@
 import { firstJsonDifference } from './support/compare-json';
-import { goldenOutput, readExample, VALID_EXAMPLES } from './support/examples';
+import { goldenOutput, RATE_EXAMPLES, readExample, VALID_EXAMPLES } from './support/examples';
 import { runSpanledger } from './support/run-spanledger';
 
 // Each run starts Node and tsx afresh (about a second).
@@ -37,12 +37,35 @@ describe('spanledger capacity on the examples', () => {
   });
 });
 
+describe('spanledger rate on the examples', () => {
+  it('has the sound, damaged and exterior-girder examples', () => {
+    expect(RATE_EXAMPLES).toEqual(['rate/exterior-girder', 'rate/interior-girder-damaged', 'rate/interior-girder-sound']);
+  });
+
+  it.each(RATE_EXAMPLES)('%s: exit 0, nothing on stderr, output as the golden file', async (name) => {
+    const run = await runSpanledger(['rate', `examples/${name}.json`]);
+    expect(run.stderr).toBe('');
+    expect(run.status).toBe(0);
+    expect(firstJsonDifference(JSON.parse(run.stdout), goldenOutput(name))).toBeNull();
+  });
+
+  it('rates the damaged girder lower than the sound one and posts it, with the caution and the shear warning', async () => {
+    const sound = JSON.parse((await runSpanledger(['rate', 'examples/rate/interior-girder-sound.json'])).stdout);
+    const damaged = JSON.parse((await runSpanledger(['rate', 'examples/rate/interior-girder-damaged.json'])).stdout);
+    const lowest = (output: { summary: { controlling: { ratingFactor: number }[] } }) => Math.min(...output.summary.controlling.map((c) => c.ratingFactor));
+    expect(lowest(damaged)).toBeLessThan(lowest(sound));
+    expect(damaged.summary.posting.length).toBeGreaterThan(0);
+    expect(damaged.caution).toMatch(/licensed engineer/);
+    expect(damaged.summary.warnings).toContain('shear not rated: this version rates flexure only');
+  });
+});
+
 describe('spanledger --help', () => {
-  it('lists the capacity command on stdout and exits 0', async () => {
+  it('lists the capacity and rate commands on stdout and exits 0', async () => {
     const run = await runSpanledger(['--help']);
     expect(run.status).toBe(0);
     expect(run.stdout).toMatch(/^\s+capacity FILE\.json\s/m);
-    expect(run.stdout).not.toMatch(/\brate\b/);
+    expect(run.stdout).toMatch(/^\s+rate FILE\.json\s/m);
     expect(run.stderr).toBe('');
   });
 

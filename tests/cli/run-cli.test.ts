@@ -60,7 +60,8 @@ describe('runCli', () => {
 
   it.each([
     [[], /^Usage: spanledger/],
-    [['rate', 'x.json'], /^spanledger: unknown command "rate"\n/],
+    [['design', 'x.json'], /^spanledger: unknown command "design"\n/],
+    [['rate'], /^spanledger: rate takes one FILE\.json/],
     [['capacity'], /^spanledger: capacity takes one FILE\.json/],
     [['capacity', 'a.json', 'b.json'], /^spanledger: capacity takes one FILE\.json/],
     [['capacity', '--verbose'], /^spanledger: unknown option "--verbose"/],

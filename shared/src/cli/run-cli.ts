@@ -1,6 +1,6 @@
 import { EngineInputError } from '../engine/materials/errors';
 import { BadInputError } from './bad-input';
-import { capacityFromText } from './capacity-command';
+import { COMMANDS, isCommandName } from './commands';
 import { jsonDocument } from './json-document';
 import { USAGE } from './usage';
 
@@ -30,12 +30,12 @@ export async function runCli(args: readonly string[], io: CliIo): Promise<number
     return EXIT_OK;
   }
   if (command === undefined) return usageError(io, null);
-  if (command !== 'capacity') return usageError(io, `unknown command "${command}"`);
+  if (!isCommandName(command)) return usageError(io, `unknown command "${command}"`);
   const [file] = rest;
-  if (rest.length !== 1 || file === undefined) return usageError(io, 'capacity takes one FILE.json, or - for standard input');
+  if (rest.length !== 1 || file === undefined) return usageError(io, `${command} takes one FILE.json, or - for standard input`);
   if (file.startsWith('-') && file !== STDIN_ARGUMENT) return usageError(io, `unknown option "${file}"`);
   try {
-    const output = capacityFromText(await readSource(file, io), file === STDIN_ARGUMENT ? STDIN_NAME : file);
+    const output = COMMANDS[command](await readSource(file, io), file === STDIN_ARGUMENT ? STDIN_NAME : file);
     io.stdout(jsonDocument(output));
     return EXIT_OK;
   } catch (error) {

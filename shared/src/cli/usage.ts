@@ -4,6 +4,8 @@ export const USAGE = `Usage: spanledger <command> [arguments]
 Commands:
   capacity FILE.json   flexural strength of one girder section, from a calculation file
   capacity -           the same, reading the calculation file from standard input
+  rate FILE.json       LRFR load rating of one girder line on a simple span
+  rate -               the same, from standard input
 
 Options:
   -h, --help           show this help

@@ -11,9 +11,20 @@ export const VALID_EXAMPLES = fs
   .map((name) => name.slice(0, -'.json'.length))
   .sort();
 
+/** The rating examples, examples/rate/*.json, with their outputs in examples/rate/expected/. */
+export const RATE_EXAMPLES = fs
+  .readdirSync(path.join(EXAMPLES_DIR, 'rate'))
+  .filter((name) => name.endsWith('.json'))
+  .map((name) => `rate/${name.slice(0, -'.json'.length)}`)
+  .sort();
+
 export const readExample = (relativePath: string): string => fs.readFileSync(path.join(EXAMPLES_DIR, relativePath), 'utf8');
 
-export const goldenOutput = (name: string): unknown => JSON.parse(readExample(`expected/${name}.out.json`));
+/** `name` or `rate/name`: the golden output sits in the `expected/` folder beside the example. */
+export const goldenOutput = (name: string): unknown => {
+  const slash = name.lastIndexOf('/');
+  return JSON.parse(readExample(`${name.slice(0, slash + 1)}expected/${name.slice(slash + 1)}.out.json`));
+};
 
 /** The parts of a calculation file that the bad-input cases change. */
 export interface EditableFile {

@@ -32,7 +32,7 @@ export function parseCapacityFile(input: unknown): ParseResult<CapacityFile> {
 }
 
 /** Turns `girder.strandRows[2].yMm` back into zod's path keys. */
-function pathKeys(path: string): (string | number)[] {
+export function pathKeys(path: string): (string | number)[] {
   return path.split(/\.|(?=\[)/).map((part) => (part.startsWith('[') ? Number(part.slice(1, -1)) : part));
 }
 
