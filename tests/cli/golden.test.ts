@@ -38,8 +38,14 @@ describe('spanledger capacity on the examples', () => {
 });
 
 describe('spanledger rate on the examples', () => {
-  it('has the sound, damaged and exterior-girder examples', () => {
-    expect(RATE_EXAMPLES).toEqual(['rate/exterior-girder', 'rate/interior-girder-damaged', 'rate/interior-girder-sound']);
+  it('has the sound, damaged, exterior, harped and debonded examples', () => {
+    expect(RATE_EXAMPLES).toEqual([
+      'rate/debonded-girder-computed-losses',
+      'rate/exterior-girder',
+      'rate/harped-girder-with-break',
+      'rate/interior-girder-damaged',
+      'rate/interior-girder-sound',
+    ]);
   });
 
   it.each(RATE_EXAMPLES)('%s: exit 0, nothing on stderr, output as the golden file', async (name) => {

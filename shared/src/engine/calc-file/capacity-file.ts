@@ -37,14 +37,17 @@ export function pathKeys(path: string): (string | number)[] {
 }
 
 /** Every cross-field rule of a capacity file that the per-field schemas cannot see. */
-export function capacityFileIssues(file: { girder: Girder; damage: readonly DamageEntry[]; options: CapacityOptions }): CalcFileIssue[] {
+export function capacityFileIssues(
+  file: { girder: Girder; damage: readonly DamageEntry[]; options: CapacityOptions },
+  { effectivePrestressGiven = true }: { effectivePrestressGiven?: boolean } = {},
+): CalcFileIssue[] {
   const polygons = shapeToPolygons(file.girder.section);
   return [
     ...girderIssues(file.girder, polygons),
     ...applyStrandDamage(file.girder.strandRows, file.damage).issues,
     ...concreteDamageIssues(file, polygons),
     ...optionIssues(file),
-    ...effectivePrestressIssues(file.girder),
+    ...(effectivePrestressGiven ? effectivePrestressIssues(file.girder) : []),
   ];
 }
 

@@ -14,11 +14,16 @@ export interface StrandDamageResult {
   /** Per row id, one state per strand in the order of the row's `xMm` (or 0…count−1). */
   readonly states: ReadonlyMap<string, readonly StrandState[]>;
   readonly issues: readonly CalcFileIssue[];
+  /** The strands each damage entry takes, by its position in the list (empty for entries on concrete). */
+  readonly strandsByEntry: readonly (readonly number[])[];
 }
 
 const isStrandEntry = (entry: DamageEntry): entry is StrandDamageEntry => 'rowId' in entry;
 
-/** The strands an entry names; counted entries take the lowest-numbered strands still standing. */
+/**
+ * The strands an entry names, by index into the row (its `xMm` order when positions are given,
+ * else 0…count−1); counted entries take the lowest-numbered strands still standing.
+ */
 function selectStrands(entry: StrandDamageEntry, row: StrandRow, states: StrandState[], path: string, issues: CalcFileIssue[]): number[] {
   if ((entry.count === undefined) === (entry.strands === undefined)) {
     issues.push({ path, message: 'give either "count" or "strands", not both or neither' });
@@ -39,10 +44,6 @@ function alreadyAffected(entry: StrandDamageEntry, state: StrandState): boolean 
 }
 
 function namedStrands(indexes: readonly number[], row: StrandRow, states: StrandState[], path: string, issues: CalcFileIssue[]): number[] {
-  if (row.xMm === undefined) {
-    issues.push({ path, message: `row "${row.id}" has no xMm, so its strands cannot be named by index; give a count instead` });
-    return [];
-  }
   const valid: number[] = [];
   indexes.forEach((index, position) => {
     if (index >= row.count) issues.push({ path: `${path}[${position}]`, message: `row "${row.id}" has strands 0–${row.count - 1} only` });
@@ -75,16 +76,18 @@ function applyEntry(entry: StrandDamageEntry, strands: number[], states: StrandS
 export function applyStrandDamage(rows: readonly StrandRow[], damage: readonly DamageEntry[], damagePath = 'damage'): StrandDamageResult {
   const states = new Map(rows.map((row) => [row.id, Array.from({ length: row.count }, () => ({ lost: false, areaFactor: 1, exposed: false }))]));
   const issues: CalcFileIssue[] = [];
-  damage.forEach((entry, position) => {
-    if (!isStrandEntry(entry)) return;
+  const strandsByEntry = damage.map((entry, position): number[] => {
+    if (!isStrandEntry(entry)) return [];
     const path = `${damagePath}[${position}]`;
     const row = rows.find((candidate) => candidate.id === entry.rowId);
     const rowStates = states.get(entry.rowId);
     if (!row || !rowStates) {
       issues.push({ path: `${path}.rowId`, message: `no strand row has id "${entry.rowId}"` });
-      return;
+      return [];
     }
-    applyEntry(entry, selectStrands(entry, row, rowStates, path, issues), rowStates, path, issues);
+    const strands = selectStrands(entry, row, rowStates, path, issues);
+    applyEntry(entry, strands, rowStates, path, issues);
+    return strands;
   });
-  return { states, issues };
+  return { states, issues, strandsByEntry };
 }

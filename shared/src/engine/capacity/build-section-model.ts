@@ -4,6 +4,7 @@ import { buildCompositeSection, flatTopWidthMm, sectionDepthMm, shapeToPolygons,
 import { concreteLossPolygon } from '../calc-file/capacity-file';
 import type { CapacityOptions, DamageEntry, Girder, StrandRow } from '../calc-file/girder';
 import { applyStrandDamage, type StrandState } from '../calc-file/strand-damage';
+import type { DevelopingPart } from './development';
 import type { CompressionFlange, ConcreteMaterial, ConcreteRegion, SectionModel, StrandLayer } from './section-model';
 
 /** What the model builder needs of a calculation file (the capacity file, or a rate file at one station). */
@@ -11,6 +12,8 @@ export interface SectionModelInput {
   readonly girder: Girder;
   readonly damage: readonly DamageEntry[];
   readonly options: Pick<CapacityOptions, 'haunchInSection' | 'elasticModulusFormula'>;
+  /** Along the span: each strand's development at this station; omitted for a section check. */
+  readonly development?: StrandDevelopment;
 }
 
 const DEFAULT_FORMULA: Record<'cylinder' | 'cube', ElasticModulusFormula> = { cylinder: 'aashto-8', cube: 'is-456' };
@@ -55,16 +58,41 @@ function strandsInSpallWarnings(rows: readonly StrandRow[], losses: readonly { p
   );
 }
 
+/**
+ * Where a strand stands at the section along the span (`rate`): how far it is from where its
+ * bond begins and from an exposed zone, or null where it is fully developed.
+ */
+export type StrandDevelopment = (rowIndex: number, strandIndex: number) => Omit<DevelopingPart, 'areaMm2'> | null;
+
+const SECTION_EXPOSED: Omit<DevelopingPart, 'areaMm2'> = { bondDistanceMm: Number.POSITIVE_INFINITY, exposedDistanceMm: 0, kappa: 1 };
+
+/** Strands with the same development share one part, so a row has few parts however many strands. */
+function addDevelopingPart(parts: DevelopingPart[], development: Omit<DevelopingPart, 'areaMm2'>, areaMm2: number): void {
+  const same = parts.findIndex(
+    (part) => part.bondDistanceMm === development.bondDistanceMm && part.exposedDistanceMm === development.exposedDistanceMm && part.kappa === development.kappa,
+  );
+  if (same >= 0) parts[same] = { ...parts[same]!, areaMm2: parts[same]!.areaMm2 + areaMm2 };
+  else parts.push({ ...development, areaMm2 });
+}
+
+function mergedDevelopment(exposedHere: boolean, alongSpan: Omit<DevelopingPart, 'areaMm2'> | null): Omit<DevelopingPart, 'areaMm2'> | null {
+  if (!exposedHere) return alongSpan;
+  return alongSpan ? { ...alongSpan, exposedDistanceMm: 0 } : SECTION_EXPOSED;
+}
+
 /** The strands that remain of one row, as one layer: lost strands out, section loss off their area. */
-function strandLayer(row: StrandRow, index: number, states: readonly StrandState[], topYMm: number): StrandLayer {
+function strandLayer(row: StrandRow, index: number, states: readonly StrandState[], topYMm: number, development: StrandDevelopment | undefined): StrandLayer {
   // Counted in strands, then multiplied once, so that ten whole strands are exactly ten.
   let effectiveStrands = 0;
   let exposedStrands = 0;
-  for (const state of states) {
-    if (state.lost) continue;
+  const developingParts: DevelopingPart[] = [];
+  states.forEach((state, strandIndex) => {
+    if (state.lost) return;
     effectiveStrands += state.areaFactor;
     if (state.exposed) exposedStrands += state.areaFactor;
-  }
+    const limit = mergedDevelopment(state.exposed, development?.(index, strandIndex) ?? null);
+    if (limit) addDevelopingPart(developingParts, limit, state.areaFactor * row.strandAreaMm2);
+  });
   return {
     rowId: row.id,
     path: `girder.strandRows[${index}]`,
@@ -76,6 +104,7 @@ function strandLayer(row: StrandRow, index: number, states: readonly StrandState
     effectiveStrands,
     areaMm2: effectiveStrands * row.strandAreaMm2,
     exposedAreaMm2: exposedStrands * row.strandAreaMm2,
+    developingParts,
     material: { epsMpa: row.epsMpa, fpuMpa: row.fpuMpa, fpyMpa: row.fpyMpa },
     fpeMpa: row.fpeMpa ?? 0,
     bonded: row.bonded,
@@ -123,19 +152,21 @@ function profileFlange(widthsMm: readonly (readonly [number, number])[]): Omit<C
   return { widthMm: topWidth, thicknessMm: topY - flangeBottomY, webWidthMm: Math.min(...widthsMm.map(([, width]) => width)) };
 }
 
+/** The concrete of a section with its damage: everything of a SectionModel but the steel. */
+export type SectionGeometry = Omit<SectionModel, 'strands' | 'bars' | 'warnings'> & { readonly concreteLosses: ReturnType<typeof concreteLossPolygons> };
+
 /**
- * Builds the strength model of one girder section with its damage applied (engineering.md §2,
- * §4, §5): girder polygons less spalled concrete, the haunch and deck on the flat top (deck
- * loss off its top), strand rows net of lost strands and section loss, and the elastic
- * properties of the damaged girder and composite sections. Expects a checked file.
+ * The concrete part of the strength model (engineering.md §2, §5): girder polygons less spalled
+ * concrete, the haunch and deck on the flat top (deck loss off its top), and the elastic
+ * properties of the damaged girder and composite sections. Strand damage is not read here.
  */
-export function buildSectionModel(input: SectionModelInput): SectionModel {
+export function buildSectionGeometry(input: Omit<SectionModelInput, 'development'>): SectionGeometry {
   const { girder, damage, options } = input;
   const girderPolygons = shapeToPolygons(girder.section);
   const girderTopYMm = sectionDepthMm(girder.section);
   const girderConcrete = concreteMaterial(girder.concrete, options.elasticModulusFormula, girder.concrete.unitWeightKnM3);
-  const losses = concreteLossPolygons(damage);
-  const lossPolygons = losses.map((loss) => loss.polygon);
+  const concreteLosses = concreteLossPolygons(damage);
+  const lossPolygons = concreteLosses.map((loss) => loss.polygon);
   const netGirderParts = [
     { polygons: girderPolygons, modularRatio: 1 },
     ...(lossPolygons.length > 0 ? [{ polygons: lossPolygons, modularRatio: -1 }] : []),
@@ -177,9 +208,23 @@ export function buildSectionModel(input: SectionModelInput): SectionModel {
     const flange = girderFlange(girder.section);
     compressionFlange = flange && { source: 'girder', ...flange, concrete: girderConcrete };
   }
+  return { topYMm, girderTopYMm, regions, girderConcrete, deckConcrete, girderSection, compositeSection, compressionFlange, tensioning: girder.tensioning, concreteLosses };
+}
 
-  const { states } = applyStrandDamage(girder.strandRows, damage);
-  const strands = girder.strandRows.map((row, index) => strandLayer(row, index, states.get(row.id)!, topYMm));
+/**
+ * Adds the steel to a section's concrete: each strand row as the strands that remain in the
+ * given states (lost strands out, section loss off their area, exposed ones limited), at the
+ * row's height, and the bars. Along the span, `development` says how far each strand is from
+ * where its bond begins.
+ */
+export function withSteel(
+  geometry: SectionGeometry,
+  girder: Pick<Girder, 'strandRows' | 'bars'>,
+  states: ReadonlyMap<string, readonly StrandState[]>,
+  development?: StrandDevelopment,
+): SectionModel {
+  const { topYMm, concreteLosses, ...concrete } = geometry;
+  const strands = girder.strandRows.map((row, index) => strandLayer(row, index, states.get(row.id)!, topYMm, development));
   const bars = girder.bars.map((bar, index) => ({
     barId: bar.id,
     path: `girder.bars[${index}]`,
@@ -189,6 +234,16 @@ export function buildSectionModel(input: SectionModelInput): SectionModel {
     fyMpa: bar.fyMpa,
     esMpa: bar.esMpa,
   }));
-  const warnings = strandsInSpallWarnings(girder.strandRows, losses);
-  return { topYMm, girderTopYMm, regions, strands, bars, girderConcrete, deckConcrete, girderSection, compositeSection, compressionFlange, tensioning: girder.tensioning, warnings };
+  const warnings = strandsInSpallWarnings(girder.strandRows, concreteLosses);
+  return { ...concrete, topYMm, strands, bars, warnings };
+}
+
+/**
+ * Builds the strength model of one girder section with its damage applied (engineering.md §2,
+ * §4, §5): the damaged concrete (`buildSectionGeometry`) and the strands that the damage leaves.
+ * Expects a checked file.
+ */
+export function buildSectionModel(input: SectionModelInput): SectionModel {
+  const { states } = applyStrandDamage(input.girder.strandRows, input.damage);
+  return withSteel(buildSectionGeometry(input), input.girder, states, input.development);
 }

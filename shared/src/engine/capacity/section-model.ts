@@ -1,6 +1,7 @@
 import type { PolygonMm } from '../geometry';
 import type { StrengthBasis, StrandMaterial } from '../materials';
 import type { SectionProperties } from '../section';
+import { prestressFraction, type DevelopingPart } from './development';
 
 /**
  * The strength model of one girder section with its damage applied: what every flexural
@@ -42,6 +43,11 @@ export interface StrandLayer {
   readonly areaMm2: number;
   /** Part of `areaMm2` whose bond is lost (exposed strands): its stress is capped at fpe. */
   readonly exposedAreaMm2: number;
+  /**
+   * Parts of `areaMm2` not fully developed here (exposed strands, strands near a point where bond
+   * begins); the rest carries what the strand curve gives. Strain compatibility limits each.
+   */
+  readonly developingParts: readonly DevelopingPart[];
   readonly material: StrandMaterial;
   readonly fpeMpa: number;
   readonly bonded: boolean;
@@ -122,4 +128,14 @@ export interface StrandRowResult {
   readonly effectiveStrands: number;
   readonly totalStrain: number | null;
   readonly stressMpa: number;
+}
+
+/**
+ * The effective prestress force a layer puts on the concrete here: fpe on every remaining
+ * strand, less where a strand is still within its transfer length (engineering.md §5).
+ */
+export function effectivePrestressForceN(layer: StrandLayer): number {
+  let shortfallMm2 = 0;
+  for (const part of layer.developingParts) shortfallMm2 += part.areaMm2 * (1 - prestressFraction(part, layer.strandDiameterMm));
+  return layer.fpeMpa * (layer.areaMm2 - shortfallMm2);
 }

@@ -16,8 +16,9 @@ import {
   todeschiniStressMpa,
   type StrandCurveName,
 } from '../materials';
+import { usableStressLimitMpa } from './development';
 import { unbondedTendonStressMpa } from './unbonded-tendon';
-import { topFibreConcrete, type ConcreteRegion, type FlexuralStrength, type SectionModel, type StrandLayer, type StrandRowResult } from './section-model';
+import { effectivePrestressForceN, topFibreConcrete, type ConcreteRegion, type FlexuralStrength, type SectionModel, type StrandLayer, type StrandRowResult } from './section-model';
 
 export type ConcreteModelName = 'whitney' | 'parabolic' | 'is1343';
 
@@ -35,6 +36,10 @@ interface PreparedStrand {
   /** ε1 + ε2: strain of the strand when the concrete around it is at zero strain. */
   readonly prestrain: number;
   readonly stressAt: (strain: number) => number;
+  /** The layer's area that is fully developed here. */
+  readonly developedAreaMm2: number;
+  /** The stress limit of each of `layer.developingParts`, set before each solve. */
+  readonly partLimitsMpa: Float64Array;
 }
 
 /** The forces at one trial neutral axis, with the moments about the soffit to find Mn. */
@@ -68,22 +73,38 @@ function strandCurveFunction(curve: StrandCurveName, layer: StrandLayer): (strai
 function prepareStrands(model: SectionModel, curve: StrandCurveName): PreparedStrand[] {
   const { areaMm2, inertiaMm4, centroidFromSoffitMm } = model.girderSection;
   const bonded = model.strands.filter((layer) => layer.bonded);
-  const prestressN = bonded.reduce((sum, layer) => sum + layer.fpeMpa * layer.areaMm2, 0);
-  const forceCentroidY = prestressN > 0 ? bonded.reduce((sum, layer) => sum + layer.fpeMpa * layer.areaMm2 * layer.yMm, 0) / prestressN : centroidFromSoffitMm;
+  const prestressN = bonded.reduce((sum, layer) => sum + effectivePrestressForceN(layer), 0);
+  const forceCentroidY = prestressN > 0 ? bonded.reduce((sum, layer) => sum + effectivePrestressForceN(layer) * layer.yMm, 0) / prestressN : centroidFromSoffitMm;
   const eccentricityMm = centroidFromSoffitMm - forceCentroidY;
   return model.strands.map((layer) => {
     const rowEccentricityMm = centroidFromSoffitMm - layer.yMm;
     const decompression = (prestressN / model.girderConcrete.elasticModulusMpa) * (1 / areaMm2 + (eccentricityMm * rowEccentricityMm) / inertiaMm4);
-    return { layer, prestrain: layer.fpeMpa / layer.material.epsMpa + decompression, stressAt: strandCurveFunction(curve, layer) };
+    const developingAreaMm2 = layer.developingParts.reduce((sum, part) => sum + part.areaMm2, 0);
+    return {
+      layer,
+      prestrain: layer.fpeMpa / layer.material.epsMpa + decompression,
+      stressAt: strandCurveFunction(curve, layer),
+      developedAreaMm2: layer.areaMm2 - developingAreaMm2,
+      partLimitsMpa: new Float64Array(layer.developingParts.length),
+    };
   });
 }
 
-/** Stress of a bonded row at a strain; strands whose bond is lost (exposed) carry at most fpe. */
-function strandForceN(strand: PreparedStrand, strain: number): number {
+/** Sets each developing part's limit for the stress fps the row reaches fully developed (Infinity: not known yet). */
+function setDevelopmentLimits(strand: PreparedStrand, fpsMpa: number): void {
   const { layer } = strand;
+  layer.developingParts.forEach((part, i) => {
+    strand.partLimitsMpa[i] = usableStressLimitMpa(part, layer.fpeMpa, fpsMpa, layer.strandDiameterMm);
+  });
+}
+
+/** Force of a bonded row at a strain: developed strands on the curve, the others up to their limits. */
+function strandForceN(strand: PreparedStrand, strain: number): number {
   const stress = strand.stressAt(strain);
-  const exposedStress = Math.min(stress, layer.fpeMpa);
-  return (layer.areaMm2 - layer.exposedAreaMm2) * stress + layer.exposedAreaMm2 * exposedStress;
+  let force = strand.developedAreaMm2 * stress;
+  const parts = strand.layer.developingParts;
+  for (let i = 0; i < parts.length; i++) force += parts[i]!.areaMm2 * Math.min(stress, strand.partLimitsMpa[i]!);
+  return force;
 }
 
 interface ConcreteModel {
@@ -229,6 +250,23 @@ function solveNeutralAxis(model: SectionModel, strands: readonly PreparedStrand[
   throw new Error('strain compatibility did not converge');
 }
 
+/**
+ * Solves once with the limits that do not depend on fps (within lt, inside exposed zones), then,
+ * where a part is still developing from fpe towards fps, once more with its limit on the line
+ * from fpe to the fps the row reached fully developed in the first solve (engineering.md §5).
+ */
+function solveWithDevelopment(model: SectionModel, strands: readonly PreparedStrand[], concrete: ConcreteModel): { c: number; forces: TrialForces } {
+  strands.forEach((strand) => setDevelopmentLimits(strand, Number.POSITIVE_INFINITY));
+  const first = solveNeutralAxis(model, strands, concrete);
+  const developing = strands.filter((strand) => strand.layer.bonded && strand.layer.developingParts.length > 0);
+  if (developing.length === 0) return first;
+  for (const strand of developing) {
+    const strain = strand.prestrain + ((strand.layer.dpMm - first.c) * concrete.ultimateStrain) / first.c;
+    setDevelopmentLimits(strand, strand.stressAt(strain));
+  }
+  return solveNeutralAxis(model, strands, concrete);
+}
+
 function rowResults(strands: readonly PreparedStrand[], c: number, ultimateStrain: number): StrandRowResult[] {
   return strands.map((strand) => {
     const { layer } = strand;
@@ -255,7 +293,7 @@ export function strainCompatibilityStrength(model: SectionModel, options: Strain
   if (!hasTensionSteel(model)) return noSteelLeft(model);
   const strands = prepareStrands(model, options.strandCurve);
   const concrete = concreteModelFor(model, options.concreteModel);
-  const { c, forces } = solveNeutralAxis(model, strands, concrete);
+  const { c, forces } = solveWithDevelopment(model, strands, concrete);
   const concreteDepthFromTopMm = model.topYMm - forces.concreteMomentAboutSoffitNmm / forces.compressionN;
   const steelDepthFromTopMm = model.topYMm - forces.steelMomentAboutSoffitNmm / forces.tensionN;
   const nominalMomentNmm = forces.tensionN * (steelDepthFromTopMm - concreteDepthFromTopMm);
@@ -289,6 +327,9 @@ function strandWarnings(rows: readonly StrandRowResult[], model: SectionModel): 
     if (row.stressMpa < 0) warnings.push(`strand row "${row.rowId}" is in compression at nominal strength`);
   }
   if (model.strands.some((s) => s.exposedAreaMm2 > 0)) warnings.push('exposed strands are limited to their effective prestress fpe at this section');
+  if (model.strands.some((s) => s.developingParts.some((part) => Number.isFinite(part.bondDistanceMm)))) {
+    warnings.push('strands near a point where bond begins are limited to the stress they have developed (AASHTO LRFD 5.9.4.3)');
+  }
   if (model.strands.some((s) => !s.bonded)) {
     warnings.push('unbonded tendons use le = unbondedLengthMm as given; the 2 li/(2 + Ns) reduction for continuous tendons is not applied');
   }

@@ -149,6 +149,9 @@ function strandLayer(row: TestStrandRow, index: number, topYMm: number): StrandL
     effectiveStrands: row.count,
     areaMm2: row.count * strandAreaMm2,
     exposedAreaMm2: (row.exposedCount ?? 0) * strandAreaMm2,
+    developingParts: row.exposedCount
+      ? [{ areaMm2: row.exposedCount * strandAreaMm2, bondDistanceMm: Number.POSITIVE_INFINITY, exposedDistanceMm: 0, kappa: 1 }]
+      : [],
     material: { epsMpa: 196_500, fpuMpa, fpyMpa: row.fpyMpa ?? 0.9 * fpuMpa },
     fpeMpa: row.fpeMpa ?? 1100,
     bonded,

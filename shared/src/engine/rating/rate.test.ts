@@ -62,8 +62,12 @@ describe(`${r1.id}: ${r1.title}`, () => {
     expect(output.inputs.span.lengthM).toBe(30);
   });
 
-  it('rates at the twentieth points between the supports', () => {
-    expect(output.stations.map((station) => station.xM)).toEqual(Array.from({ length: 19 }, (_, i) => expect.closeTo(1.5 * (i + 1), 9)));
+  it('rates at the twentieth points and where the strands finish transfer and development at the ends', () => {
+    const xs = output.stations.map((station) => station.xM);
+    expect(xs).toEqual(expect.arrayContaining(Array.from({ length: 19 }, (_, i) => expect.closeTo(1.5 * (i + 1), 9))));
+    // lt = 60 db = 762 mm from each end (AASHTO LRFD 5.9.4.3.1, hand check).
+    expect(xs).toEqual(expect.arrayContaining([expect.closeTo(0.762, 9), expect.closeTo(30 - 0.762, 9)]));
+    expect([...xs].sort((a, b) => a - b)).toEqual(xs);
   });
 
   it('adds a station at each edge of a damage entry', () => {

@@ -1,7 +1,10 @@
 import type { Girder } from '../calc-file/girder';
 import { policyOf, type RateFile } from '../calc-file/rate-file';
-import { buildSectionModel } from '../capacity/build-section-model';
-import type { SectionModel } from '../capacity/section-model';
+import { buildSectionGeometry, withSteel, type SectionGeometry } from '../capacity/build-section-model';
+import { applyStrandDamage } from '../calc-file/strand-damage';
+import { sectionDepthMm } from '../section';
+import { developmentStationsMm, planSpanStrands, rowsAtMm, strandsAtMm, type SpanStrands } from './strands-along-span';
+import { effectivePrestressForceN, type SectionModel, type StrandRowResult } from '../capacity/section-model';
 import { strainCompatibilityStrength } from '../capacity/strain-compatibility';
 import { RESULT_CAUTION } from '../caution';
 import { momentDistributionFactor, type MomentDistributionResult } from '../distribution';
@@ -12,6 +15,9 @@ import { ENGINE_VERSION } from '../version';
 import { deadLoadMomentsAt, girderDeadLoads, tributaryWidthMm, type GirderDeadLoads } from './dead-loads';
 import { levelOf, postingLoad, serviceLevels, serviceRatingFactor, strengthLevels, strengthRatingFactor, type RatingFactorKey } from './lrfr';
 import { damageAt, ratingStationsMm } from './stations';
+import { strandLossMargin, type StrandLossMargin } from './strand-loss-margin';
+import { withEffectivePrestress } from './effective-prestress';
+import type { EffectivePrestressResult } from '../losses';
 
 /** One station of the output (calc-file.md, Output of rate). Moments per girder, kN·m. */
 export interface RatingStation {
@@ -29,6 +35,8 @@ export interface RatingStation {
   readonly bottomStressMpa: { readonly prestress: number; readonly dc1: number; readonly dc2: number; readonly dw: number; readonly live: Record<string, number> };
   readonly allowableTensionMpa: number;
   readonly ratingFactors: Record<string, Partial<Record<RatingFactorKey, number>>>;
+  /** Each strand row here: its height, the strands that remain (effective area ÷ one strand) and their usable stress at nominal strength. */
+  readonly rows: readonly StrandRowResult[];
   /** The damage entries (by position in `damage`) acting here. */
   readonly damageApplied: readonly number[];
 }
@@ -46,7 +54,11 @@ export interface RateOutput {
   readonly summary: {
     readonly controlling: readonly ControllingRating[];
     readonly posting: readonly { vehicle: string; postingLoad: number; unit: 't' | 'ton'; ratingFactor: number; note?: string }[];
+    readonly strandLossMargin?: StrandLossMargin;
+    readonly capacityAlongSpan: CapacityAlongSpan;
     readonly distribution: MomentDistributionResult;
+    /** Computed losses per row, when `losses.method` computes them. */
+    readonly effectivePrestress?: EffectivePrestressResult;
     readonly deadLoadsKnPerM: { readonly dc1: Readonly<Record<string, number>>; readonly dc2: number; readonly dw: number };
     readonly warnings: readonly string[];
   };
@@ -55,6 +67,17 @@ export interface RateOutput {
   readonly policyVersion: string;
   readonly signConvention: string;
   readonly caution: string;
+}
+
+/** Factored capacity against factored demand along the span, ready to plot (kN·m per girder). */
+export interface CapacityAlongSpan {
+  readonly xM: readonly number[];
+  readonly nominalMomentKnm: readonly number[];
+  readonly factoredCapacityKnm: readonly number[];
+  /** γDC (DC1 + DC2) + γDW DW + γLL (LL + IM) at each vehicle's first strength level (inventory for design loads). */
+  readonly factoredDemandKnm: Readonly<Record<string, readonly number[]>>;
+  /** The damage entries' lengths, to shade on the chart. */
+  readonly damagedZonesM: readonly { readonly fromM: number; readonly toM: number; readonly damage: number }[];
 }
 
 const SHEAR_WARNING = 'shear not rated: this version rates flexure only';
@@ -68,18 +91,35 @@ function ratedGirder(file: RateFile, policy: RatingPolicy): { girder: Girder; wa
   return { girder: { ...file.girder, deck: { ...deck, widthMm } }, warnings };
 }
 
-/** Section models by the set of damage entries acting, built once each. */
-function sectionModelsFor(file: RateFile, girder: Girder, options: { haunchInSection: boolean; elasticModulusFormula: RateFile['options']['elasticModulusFormula'] }) {
-  const cache = new Map<string, SectionModel>();
-  return (damageIndexes: readonly number[]): SectionModel => {
-    const key = damageIndexes.join(',');
-    let model = cache.get(key);
-    if (!model) {
-      model = buildSectionModel({ girder, damage: damageIndexes.map((i) => file.damage[i]!), options });
-      cache.set(key, model);
+type SectionOptions = { haunchInSection: boolean; elasticModulusFormula: RateFile['options']['elasticModulusFormula'] };
+
+/**
+ * The section at any station: the damaged concrete acting there (built once per set of concrete
+ * and deck damage), with the strands as they stand there — at their profile's height, lost where
+ * broken or debonded, limited where they are still developing.
+ */
+function sectionsAlongSpan(file: RateFile, girder: Girder, options: SectionOptions, strands: SpanStrands) {
+  const geometries = new Map<string, SectionGeometry>();
+  const concreteDamage = file.damage.flatMap((entry, index) => (entry.kind === 'concrete-loss' || entry.kind === 'deck-loss' ? [index] : []));
+  return (xMm: number): SectionModel => {
+    const acting = concreteDamage.filter((index) => damageAt([file.damage[index]!], xMm).length > 0);
+    const key = acting.join(',');
+    let geometry = geometries.get(key);
+    if (!geometry) {
+      geometry = buildSectionGeometry({ girder, damage: acting.map((index) => file.damage[index]!), options });
+      geometries.set(key, geometry);
     }
-    return model;
+    const { states, development } = strandsAtMm(strands, xMm);
+    return withSteel(geometry, { strandRows: rowsAtMm(strands, xMm), bars: girder.bars }, states, development);
   };
+}
+
+/** Each row's stress at nominal strength where it is fully developed (midspan of the sound girder), for the development lengths. */
+function fullyDevelopedStressByRow(file: RateFile, girder: Girder, options: SectionOptions, strands: SpanStrands): number[] {
+  const midspanMm = strands.spanLengthMm / 2;
+  const { states } = applyStrandDamage(girder.strandRows, []);
+  const model = withSteel(buildSectionGeometry({ girder, damage: [], options }), { strandRows: rowsAtMm(strands, midspanMm), bars: girder.bars }, states);
+  return strainCompatibilityStrength(model, { strandCurve: file.options.strandCurve, concreteModel: file.options.concreteModel }).rows.map((row) => row.stressMpa);
 }
 
 function distributionFor(file: RateFile, sound: SectionModel): MomentDistributionResult {
@@ -104,9 +144,9 @@ function distributionFor(file: RateFile, sound: SectionModel): MomentDistributio
 /** Bottom-fibre stress of the effective prestress that remains, on the damaged girder section (tension positive). */
 function prestressBottomStressMpa(model: SectionModel): number {
   const { areaMm2, centroidFromSoffitMm, bottomModulusMm3 } = model.girderSection;
-  const forceN = model.strands.reduce((sum, layer) => sum + layer.fpeMpa * layer.areaMm2, 0);
+  const forceN = model.strands.reduce((sum, layer) => sum + effectivePrestressForceN(layer), 0);
   if (forceN === 0) return 0;
-  const forceY = model.strands.reduce((sum, layer) => sum + layer.fpeMpa * layer.areaMm2 * layer.yMm, 0) / forceN;
+  const forceY = model.strands.reduce((sum, layer) => sum + effectivePrestressForceN(layer) * layer.yMm, 0) / forceN;
   const eccentricityMm = centroidFromSoffitMm - forceY;
   return -forceN / areaMm2 - (forceN * eccentricityMm) / bottomModulusMm3;
 }
@@ -124,17 +164,30 @@ interface VehicleLive {
  * there, strength I at each level of the vehicle's category and Service III at the bottom fibre,
  * then the controlling rating and the posting loads. Takes a file `parseRateFile` accepted.
  */
-export function rateGirderLine(file: RateFile): RateOutput {
+export interface RateOptions {
+  /** Rate only at these stations, plus the development points that fall among them (the strand-loss margin's local re-rating). */
+  readonly onlyNearMm?: { readonly fromMm: number; readonly toMm: number };
+  /** Leave out the strand-loss margin (it re-rates the girder line once per strand it takes). */
+  readonly withoutMargin?: boolean;
+}
+
+export function rateGirderLine(file: RateFile, rateOptions: RateOptions = {}): RateOutput {
   const policy = policyOf(file);
-  const { girder, warnings: girderWarnings } = ratedGirder(file, policy);
+  const { girder: widened, warnings: girderWarnings } = ratedGirder(file, policy);
+  const { girder, losses } = withEffectivePrestress(file, widened, policy);
   const sectionOptions = {
     haunchInSection: file.options.haunchInSection ?? policy.section.haunchInSection,
     elasticModulusFormula: file.options.elasticModulusFormula ?? policy.section.elasticModulusFormula,
   };
-  const modelFor = sectionModelsFor(file, girder, sectionOptions);
-  const soundModel = modelFor([]);
+  const spanStrands = planSpanStrands({ ...file, girder }, sectionDepthMm(girder.section));
+  const modelAt = sectionsAlongSpan(file, girder, sectionOptions, spanStrands);
   const spanLengthMm = file.span.lengthM * 1000;
-  const stationsMm = ratingStationsMm(file.span, file.damage);
+  const soundModel = withSteel(buildSectionGeometry({ girder, damage: [], options: sectionOptions }), girder, applyStrandDamage(girder.strandRows, []).states);
+  const fpsByRow = fullyDevelopedStressByRow(file, girder, sectionOptions, spanStrands);
+  const near = rateOptions.onlyNearMm;
+  const stationsMm = ratingStationsMm(file.span, file.damage, developmentStationsMm(spanStrands, fpsByRow)).filter(
+    (x) => !near || (x >= near.fromMm && x <= near.toMm),
+  );
   const distribution = distributionFor(file, soundModel);
   const deadLoads = girderDeadLoads(girder, file.span, policy);
   const impactFactor = policy.liveLoad.impactFactor;
@@ -152,19 +205,36 @@ export function rateGirderLine(file: RateFile): RateOutput {
 
   const stations = stationsMm.map((xMm, stationIndex) => {
     const damageIndexes = file.damage.flatMap((entry, i) => (damageAt([entry], xMm).length > 0 ? [i] : []));
-    const model = modelFor(damageIndexes);
+    const model = modelAt(xMm);
     const strength = strainCompatibilityStrength(model, { strandCurve: file.options.strandCurve, concreteModel: file.options.concreteModel });
     strength.warnings.forEach((warning) => capacityWarnings.add(warning));
     model.warnings.forEach((warning) => capacityWarnings.add(warning));
     return rateStation({ file, policy, model, deadLoads, vehicles, xMm, stationIndex, spanLengthMm, strength, phiC, phiS, phiCPhiS, distribution, impactFactor, damageIndexes });
   });
 
+  const controlling = controllingRatings(stations);
+  const gammaDW = file.span.wearingSurface?.measured ? policy.deadLoad.gammaDWMeasured : policy.deadLoad.gammaDW;
+  const capacityAlongSpan: CapacityAlongSpan = {
+    xM: stations.map((station) => station.xM),
+    nominalMomentKnm: stations.map((station) => station.nominalMomentKnm),
+    factoredCapacityKnm: stations.map((station) => station.factoredCapacityKnm),
+    factoredDemandKnm: Object.fromEntries(
+      vehicles.map(({ vehicle }) => {
+        const gammaLL = strengthLevels(vehicle.category, policy, file.traffic.adtt)[0]!.gammaLL;
+        return [vehicle.id, stations.map((s) => policy.deadLoad.gammaDC * (s.momentsKnm.dc1 + s.momentsKnm.dc2) + gammaDW * s.momentsKnm.dw + gammaLL * s.momentsKnm.live[vehicle.id]!)];
+      }),
+    ),
+    damagedZonesM: file.damage.map((entry, damage) => ({ fromM: entry.fromM!, toM: entry.toM!, damage })),
+  };
   return {
     stations,
     summary: {
-      controlling: controllingRatings(stations, vehicles),
-      posting: postings(stations, vehicles, policy),
+      controlling,
+      capacityAlongSpan,
+      ...(rateOptions.withoutMargin || near ? {} : { strandLossMargin: strandLossMargin(file, stations, controlling, spanStrands, fpsByRow) }),
+      posting: postings(controlling, vehicles, policy),
       distribution,
+      ...(losses ? { effectivePrestress: losses } : {}),
       deadLoadsKnPerM: { dc1: deadLoads.dc1Parts, dc2: deadLoads.dc2UniformNPerMm, dw: deadLoads.dwUniformNPerMm },
       warnings: [SHEAR_WARNING, ...girderWarnings, ...distribution.warnings, ...capacityWarnings],
     },
@@ -242,21 +312,22 @@ function rateStation(context: StationContext): RatingStation {
     bottomStressMpa: { prestress: prestressMpa, dc1: dc1Mpa, dc2: dc2Mpa, dw: dwMpa, live: liveStress },
     allowableTensionMpa,
     ratingFactors,
+    rows: strength.rows,
     damageApplied: context.damageIndexes,
   };
 }
 
-/** The lowest rating factor of each vehicle at each level, with its limit state and station. */
-function controllingRatings(stations: readonly RatingStation[], vehicles: readonly VehicleLive[]): ControllingRating[] {
+/** The lowest rating factor of each vehicle at each level and limit state, with its station. */
+export function controllingRatings(stations: readonly RatingStation[]): ControllingRating[] {
   const lowest = new Map<string, ControllingRating>();
   for (const station of stations) {
-    for (const { vehicle } of vehicles) {
-      for (const [key, ratingFactor] of Object.entries(station.ratingFactors[vehicle.id] ?? {}) as [RatingFactorKey, number][]) {
+    for (const [vehicle, factors] of Object.entries(station.ratingFactors)) {
+      for (const [key, ratingFactor] of Object.entries(factors) as [RatingFactorKey, number][]) {
         const level = levelOf(key);
         const limitState = key.startsWith('service') ? 'service-iii' : 'strength-i';
-        const id = `${vehicle.id}/${level}/${limitState}`;
+        const id = `${vehicle}/${level}/${limitState}`;
         const current = lowest.get(id);
-        if (!current || ratingFactor < current.ratingFactor) lowest.set(id, { vehicle: vehicle.id, level, limitState, ratingFactor, xM: station.xM });
+        if (!current || ratingFactor < current.ratingFactor) lowest.set(id, { vehicle, level, limitState, ratingFactor, xM: station.xM });
       }
     }
   }
@@ -275,8 +346,8 @@ function lowestLegalRatings(controlling: readonly ControllingRating[]): Controll
 }
 
 /** Posting loads for the legal-level vehicles whose controlling rating factor is below 1.0. */
-function postings(stations: readonly RatingStation[], vehicles: readonly VehicleLive[], policy: RatingPolicy): RateOutput['summary']['posting'] {
-  return lowestLegalRatings(controllingRatings(stations, vehicles))
+function postings(controlling: readonly ControllingRating[], vehicles: readonly VehicleLive[], policy: RatingPolicy): RateOutput['summary']['posting'] {
+  return lowestLegalRatings(controlling)
     .filter((rating) => rating.ratingFactor < 1)
     .map((rating) => {
       const vehicle = vehicles.find((candidate) => candidate.vehicle.id === rating.vehicle)!.vehicle;
