@@ -68,11 +68,14 @@ const SECTION_EXPOSED: Omit<DevelopingPart, 'areaMm2'> = { bondDistanceMm: Numbe
 
 /** Strands with the same development share one part, so a row has few parts however many strands. */
 function addDevelopingPart(parts: DevelopingPart[], development: Omit<DevelopingPart, 'areaMm2'>, areaMm2: number): void {
-  const same = parts.findIndex(
-    (part) => part.bondDistanceMm === development.bondDistanceMm && part.exposedDistanceMm === development.exposedDistanceMm && part.kappa === development.kappa,
-  );
-  if (same >= 0) parts[same] = { ...parts[same]!, areaMm2: parts[same]!.areaMm2 + areaMm2 };
-  else parts.push({ ...development, areaMm2 });
+  for (let i = 0; i < parts.length; i++) {
+    const part = parts[i]!;
+    if (part.bondDistanceMm === development.bondDistanceMm && part.exposedDistanceMm === development.exposedDistanceMm && part.kappa === development.kappa) {
+      parts[i] = { ...part, areaMm2: part.areaMm2 + areaMm2 };
+      return;
+    }
+  }
+  parts.push({ ...development, areaMm2 });
 }
 
 function mergedDevelopment(exposedHere: boolean, alongSpan: Omit<DevelopingPart, 'areaMm2'> | null): Omit<DevelopingPart, 'areaMm2'> | null {

@@ -321,13 +321,16 @@ function rateStation(context: StationContext): RatingStation {
 export function controllingRatings(stations: readonly RatingStation[]): ControllingRating[] {
   const lowest = new Map<string, ControllingRating>();
   for (const station of stations) {
-    for (const [vehicle, factors] of Object.entries(station.ratingFactors)) {
-      for (const [key, ratingFactor] of Object.entries(factors) as [RatingFactorKey, number][]) {
-        const level = levelOf(key);
-        const limitState = key.startsWith('service') ? 'service-iii' : 'strength-i';
-        const id = `${vehicle}/${level}/${limitState}`;
+    for (const vehicle in station.ratingFactors) {
+      const factors = station.ratingFactors[vehicle]!;
+      for (const key in factors) {
+        const ratingFactor = factors[key as RatingFactorKey]!;
+        const id = vehicle + '/' + key;
         const current = lowest.get(id);
-        if (!current || ratingFactor < current.ratingFactor) lowest.set(id, { vehicle, level, limitState, ratingFactor, xM: station.xM });
+        if (!current || ratingFactor < current.ratingFactor) {
+          const limitState = key.startsWith('service') ? 'service-iii' : 'strength-i';
+          lowest.set(id, { vehicle, level: levelOf(key as RatingFactorKey), limitState, ratingFactor, xM: station.xM });
+        }
       }
     }
   }
