@@ -95,3 +95,21 @@ describe('spanledger capacity on bad input', () => {
     expectBadInput(run, /^span: /m);
   });
 });
+
+describe('spanledger rate on bad input', () => {
+  /** The sound rating example with a change applied, as JSON text. */
+  const ratingWith = (change: (file: any) => void): string => {
+    const file = JSON.parse(readExample('rate/interior-girder-sound.json'));
+    change(file);
+    return JSON.stringify(file);
+  };
+
+  it.each([
+    ['a negative span length', (f: any) => (f.span.lengthM = -27.4), 'span.lengthM: must be > 0'],
+    ['damage outside the span', (f: any) => (f.damage = [{ kind: 'lost-strands', rowId: 'r1', count: 1, fromM: 26, toM: 30 }]), 'damage[0].toM: lies beyond the span (27.4 m)'],
+    ['an unknown vehicle id', (f: any) => f.vehicles.push('hs25'), /^vehicles\[8\]: /],
+    ['a profile for a row that does not exist', (f: any) => (f.profiles = [{ rowId: 'r9', shape: 'straight' }]), 'profiles[0].rowId: no strand row has id "r9"'],
+  ])('%s: exit 2 naming the path', async (_what, change, expected) => {
+    expectBadInput(await runSpanledger(['rate', '-'], ratingWith(change)), expected);
+  });
+});
