@@ -31,7 +31,7 @@ const CROSSINGS = [
 export const STRUCTURES_PER_DISTRICT = CROSSINGS.length;
 
 /** A small fixed-seed generator (mulberry32) so the demo is the same on every machine. */
-function seededRandom(seed: number): () => number {
+export function seededRandom(seed: number): () => number {
   let state = seed >>> 0;
   return () => {
     state = (state + 0x6d2b79f5) >>> 0;

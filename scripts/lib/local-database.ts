@@ -1,11 +1,13 @@
 import path from 'node:path';
 import { createDatabase, migrationConfig, type Database } from '../../backend/src/db/database';
 import { runDataLoadOnce } from '../../backend/src/db/data-loads';
+import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { DATA_DIR } from './project-paths';
 import { connectionUrl, ensureDatabase, startCluster, waitUntilAccepting, type ClusterSettings } from './postgres-cluster';
 
 export const DEMO_DATA_LOAD = 'demo-scenario';
+export const DEMO_INVENTORY_LOAD = 'demo-inventory';
 
 /** The project-local cluster used by `npm start`: kept between runs, durable defaults. */
 export function localClusterSettings(port: number): ClusterSettings {
@@ -16,6 +18,8 @@ export function localClusterSettings(port: number): ClusterSettings {
 export async function prepareDatabase(db: Database, { loadDemo }: { loadDemo: boolean }): Promise<{ migrations: string[]; demoLoaded: boolean }> {
   const [, migrations] = (await db.migrate.latest(migrationConfig)) as [number, string[]];
   const demoLoaded = loadDemo ? await runDataLoadOnce(db, DEMO_DATA_LOAD, seedDemoStructures) : false;
+  // A database from before the inventory existed gets the demo girders once too.
+  if (loadDemo) await runDataLoadOnce(db, DEMO_INVENTORY_LOAD, seedDemoInventory);
   return { migrations, demoLoaded };
 }
 
