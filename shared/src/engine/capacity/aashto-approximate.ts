@@ -8,7 +8,7 @@ import {
   requireBasis,
   joinPath,
 } from '../materials';
-import type { BarLayer, CompressionFlange, FlexuralStrength, SectionModel, StrandLayer, StrandRowResult } from './section-model';
+import { requireCompressionFlange, type BarLayer, type CompressionFlange, type FlexuralStrength, type SectionModel, type StrandLayer, type StrandRowResult } from './section-model';
 import { UNBONDED_STRESS_INCREASE_MPA, unbondedTendonStressMpa } from './unbonded-tendon';
 
 /** AASHTO LRFD 5.6.3.1.1: its fps formula holds only when fpe ≥ 0.5 fpu [R]. */
@@ -65,7 +65,7 @@ interface Equilibrium {
  * Refuses a section without a recognised compression flange (`options.method`).
  */
 export function aashtoApproximateStrength(model: SectionModel): FlexuralStrength {
-  const flange = requireFlange(model);
+  const flange = requireCompressionFlange(model, 'the AASHTO approximate method');
   const block = stressBlockOf(flange);
   const steel = tensionSteelOf(model);
   const warnings = validityWarnings(model, steel);
@@ -95,16 +95,6 @@ export function aashtoApproximateStrength(model: SectionModel): FlexuralStrength
   };
 }
 
-function requireFlange(model: SectionModel): CompressionFlange {
-  if (model.compressionFlange === null) {
-    throw new EngineInputError(
-      'options.method',
-      'the AASHTO approximate method needs a rectangular or flanged compression zone (a rectangle, tee, ' +
-        'I-girder or a deck); this section has none it can recognise: use strain-compatibility',
-    );
-  }
-  return model.compressionFlange;
-}
 
 function stressBlockOf(flange: CompressionFlange): StressBlock {
   const fcMpa = requireBasis(flange.concrete, 'cylinder', flange.source === 'deck' ? 'girder.deck' : 'girder.concrete');

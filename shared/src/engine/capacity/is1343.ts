@@ -1,6 +1,6 @@
 import { convert } from '../../units';
 import { EngineInputError, IS1343_STRAND_DESIGN_STRENGTH_RATIO, IS_RECTANGULAR_ZONE_RESULTANT, joinPath, requireBasis } from '../materials';
-import type { CompressionFlange, FlexuralStrength, SectionModel, StrandLayer } from './section-model';
+import { requireCompressionFlange, type FlexuralStrength, type SectionModel, type StrandLayer } from './section-model';
 
 /** One row of IS 1343:1980 Table 11: at a reinforcement index, fpb/0.87 fp and xu/d for each kind of tensioning. */
 export interface Is1343TableRow {
@@ -78,7 +78,7 @@ interface TableStrength {
  * row, fpe < 0.45 fp in any row, rows of different fp, and an index beyond the table's 0.40.
  */
 export function is1343Strength(model: SectionModel): FlexuralStrength {
-  const flange = requireRectangularZone(model);
+  const flange = requireCompressionFlange(model, 'IS 1343 Appendix B');
   const fckMpa = requireBasis(flange.concrete, 'cube', flange.source === 'deck' ? 'girder.deck' : 'girder.concrete');
   const tendons = bondedTendonsOf(model.strands);
   const warnings = [IS1343_CAPACITY_CHECK_NOTE, ...exclusionWarnings(model)];
@@ -129,16 +129,6 @@ function tableRowEntry(row: Is1343TableRow, tensioning: 'pre' | 'post') {
   return { reinforcementIndex: row.reinforcementIndex, entry: row[tensioning] };
 }
 
-function requireRectangularZone(model: SectionModel): CompressionFlange {
-  if (model.compressionFlange === null) {
-    throw new EngineInputError(
-      'options.method',
-      'IS 1343 Appendix B needs a rectangular or flanged compression zone (a rectangle, tee, I-girder or a deck); ' +
-        'this section has none it can recognise: use strain-compatibility',
-    );
-  }
-  return model.compressionFlange;
-}
 
 function bondedTendonsOf(layers: readonly StrandLayer[]): Tendons {
   const first = layers[0];

@@ -1,6 +1,7 @@
 import type { PolygonMm } from '../geometry';
 import type { StrengthBasis, StrandMaterial } from '../materials';
 import type { SectionProperties } from '../section';
+import { EngineInputError } from '../materials/errors';
 import { prestressFraction, type DevelopingPart } from './development';
 
 /**
@@ -138,4 +139,16 @@ export function effectivePrestressForceN(layer: StrandLayer): number {
   let shortfallMm2 = 0;
   for (const part of layer.developingParts) shortfallMm2 += part.areaMm2 * (1 - prestressFraction(part, layer.strandDiameterMm));
   return layer.fpeMpa * (layer.areaMm2 - shortfallMm2);
+}
+
+/** The compression flange a hand method needs, or bad input naming the method when the section has none. */
+export function requireCompressionFlange(model: SectionModel, methodName: string): CompressionFlange {
+  if (model.compressionFlange === null) {
+    throw new EngineInputError(
+      'options.method',
+      `${methodName} needs a rectangular or flanged compression zone (a rectangle, tee, I-girder or a deck); ` +
+        'this section has none it can recognise: use strain-compatibility',
+    );
+  }
+  return model.compressionFlange;
 }

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import r1 from '../fixtures/rating/r1-interior-girder-midspan.json';
-import { parseRateFile, type RateFile } from '../calc-file/rate-file';
+import { parseRateFile } from '../calc-file/rate-file';
 import { developmentLengthMm, transferLengthMm } from '../capacity/development';
 import { rateGirderLine, type RateOutput, type RatingStation } from './rate';
 
