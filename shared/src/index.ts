@@ -1,6 +1,7 @@
 /** The public API of Spanledger's shared code: what is not exported here is private. */
 export * from './structures';
 export * from './client-config';
+export * from './access';
 export * from './units';
 export * from './engine/geometry';
 export * from './engine/section';
