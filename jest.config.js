@@ -28,7 +28,7 @@ module.exports = {
     nodeProject('browser', ['<rootDir>/tests/browser'], {
       globalSetup: '<rootDir>/tests/support/browser-global-setup.ts',
       globalTeardown: '<rootDir>/tests/support/global-teardown.ts',
-      testTimeout: 60000,
+      setupFilesAfterEnv: ['<rootDir>/tests/support/browser-timeout.ts'],
     }),
     '<rootDir>/frontend/jest.config.ts',
   ],

@@ -1,4 +1,11 @@
+import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
+import './auth/express-augmentation';
+import { assertEveryRouteDeclaresAPolicy } from './access/route-table';
+import { authRouter, meRouter, samlCallbackRouter } from './auth/auth.router';
+import { createSamlAuthenticator, createSamlStrategy } from './auth/saml-strategy';
+import { currentUser, sessions } from './auth/sessions';
+import { xsrfProtection } from './auth/xsrf';
 import type { AppConfig } from './config';
 import type { Database } from './db/database';
 import type { Logger } from './logger';
@@ -8,6 +15,7 @@ import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { frontendRouter } from './http/frontend';
 import { requestLogging } from './http/request-logging';
 import { securityHeaders } from './http/security-headers';
+import { networkRegisterRouter } from './network-register/network-register.router';
 import { structuresRouter } from './structures/structures.router';
 
 export interface AppDependencies {
@@ -16,23 +24,40 @@ export interface AppDependencies {
   readonly logger: Logger;
 }
 
-/** The whole HTTP application: API under /api, the built front end everywhere else. */
+/**
+ * The whole HTTP application: sign-in under /auth, the API under /api, the built front end
+ * everywhere else. Every route declares who may use it; the app refuses to build otherwise.
+ */
 export function createApp({ config, db, logger }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('query parser', 'simple');
+  app.set('trust proxy', config.trustProxy);
   app.use(requestLogging(logger));
   app.use(securityHeaders(config));
+
+  const strategy = createSamlStrategy(config.saml, db);
+  const passport = createSamlAuthenticator(strategy);
+
+  app.use(cookieParser());
+  app.use(sessions(config.session, db, logger));
+  app.use(currentUser(config.session));
+  app.use(samlCallbackRouter(config, db, passport));
+  app.use(xsrfProtection(config.session));
+  app.use(authRouter(config, db, passport, strategy));
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
   api.use(healthRouter(db));
   api.use(clientConfigRouter(config));
+  api.use(meRouter());
   api.use(structuresRouter(db));
+  api.use(networkRegisterRouter(db));
   api.use(apiNotFound);
   app.use('/api', api);
 
   app.use(frontendRouter(config.frontendDist, logger));
   app.use(errorMiddleware);
+  assertEveryRouteDeclaresAPolicy(app);
   return app;
 }

@@ -1,8 +1,20 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import { ConfigError, loadConfig } from './config';
+
+const CERTIFICATE = '-----BEGIN CERTIFICATE-----\nMIIBdGVzdA==\n-----END CERTIFICATE-----';
+/** The settings that have no default: who signs people in, and the session secret. */
+const SIGN_IN = {
+  SESSION_SECRET: 'a-session-secret-of-at-least-32-characters',
+  SAML_IDP_ENTRY_POINT: 'https://login.example.org/saml/sso',
+  SAML_IDP_ENTITY_ID: 'https://login.example.org/idp',
+  SAML_IDP_CERT: CERTIFICATE,
+};
 
 describe('loadConfig', () => {
   it('has defaults for one machine', () => {
-    expect(loadConfig({})).toEqual({
+    expect(loadConfig(SIGN_IN)).toEqual({
       host: '127.0.0.1',
       port: 4300,
       databaseUrl: 'postgres://postgres@127.0.0.1:54329/spanledger',
@@ -10,12 +22,41 @@ describe('loadConfig', () => {
       frontendDist: 'dist/frontend/browser',
       basemapTileUrl: null,
       basemapAttribution: null,
+      publicUrl: 'http://127.0.0.1:4300',
+      trustProxy: 0,
+      session: { secret: SIGN_IN.SESSION_SECRET, idleTimeoutMs: 30 * 60_000, absoluteTimeoutMs: 10 * 3_600_000, secureCookies: false },
+      saml: {
+        idpEntryPoint: SIGN_IN.SAML_IDP_ENTRY_POINT,
+        idpEntityId: SIGN_IN.SAML_IDP_ENTITY_ID,
+        idpCertificate: CERTIFICATE,
+        spEntityId: 'http://127.0.0.1:4300/auth/saml/metadata',
+        callbackUrl: 'http://127.0.0.1:4300/auth/saml/callback',
+        clockSkewMs: 60_000,
+        attributes: { email: 'email', displayName: 'displayName', role: 'role', districts: 'districts', admin: 'admin' },
+      },
     });
   });
 
   it('builds the database URL from its parts and prefers DATABASE_URL when given', () => {
-    expect(loadConfig({ DB_PORT: '6000', DB_NAME: 'network_b' }).databaseUrl).toBe('postgres://postgres@127.0.0.1:6000/network_b');
-    expect(loadConfig({ DATABASE_URL: 'postgres://app@db.internal:5432/register' }).databaseUrl).toBe('postgres://app@db.internal:5432/register');
+    expect(loadConfig({ ...SIGN_IN, DB_PORT: '6000', DB_NAME: 'network_b' }).databaseUrl).toBe('postgres://postgres@127.0.0.1:6000/network_b');
+    expect(loadConfig({ ...SIGN_IN, DATABASE_URL: 'postgres://app@db.internal:5432/register' }).databaseUrl).toBe('postgres://app@db.internal:5432/register');
+  });
+
+  it('derives the SAML addresses from PUBLIC_URL and turns Secure cookies on for https', () => {
+    const config = loadConfig({ ...SIGN_IN, PUBLIC_URL: 'https://bridges.example.org/' });
+    expect(config.saml.callbackUrl).toBe('https://bridges.example.org/auth/saml/callback');
+    expect(config.saml.spEntityId).toBe('https://bridges.example.org/auth/saml/metadata');
+    expect(config.session.secureCookies).toBe(true);
+    expect(loadConfig({ ...SIGN_IN, PUBLIC_URL: 'https://bridges.example.org', COOKIE_SECURE: 'false' }).session.secureCookies).toBe(false);
+  });
+
+  it('reads the identity provider certificate from a file', () => {
+    const folder = fs.mkdtempSync(path.join(os.tmpdir(), 'spanledger-config-'));
+    const file = path.join(folder, 'idp.pem');
+    fs.writeFileSync(file, `subject=CN=idp\n${CERTIFICATE}\n`);
+    const { SAML_IDP_CERT: _inline, ...withoutInline } = SIGN_IN;
+    expect(loadConfig({ ...withoutInline, SAML_IDP_CERT_FILE: file }).saml.idpCertificate).toBe(CERTIFICATE);
+    fs.rmSync(folder, { recursive: true });
   });
 
   it.each([
@@ -25,12 +66,21 @@ describe('loadConfig', () => {
     [{ LOG_LEVEL: 'loud' }, /LOG_LEVEL: /],
     [{ DATABASE_URL: 'mysql://x@y/z' }, /DATABASE_URL: /],
     [{ BASEMAP_TILE_URL: 'https://tiles.example.org/tile.png' }, /BASEMAP_TILE_URL: must contain \{z\}, \{x\} and \{y\}/],
+    [{ SAML_IDP_ENTRY_POINT: '' }, /SAML_IDP_ENTRY_POINT: .*not set/],
+    [{ SAML_IDP_CERT: 'not a certificate' }, /SAML_IDP_CERT: expected a PEM certificate/],
+    [{ SAML_IDP_CERT_FILE: '/no/such/file.pem' }, /set exactly one of them/],
+    [{ SAML_CLOCK_SKEW_SECONDS: '3600' }, /SAML_CLOCK_SKEW_SECONDS: /],
   ])('refuses %p naming the setting', (env, message) => {
-    expect(() => loadConfig(env)).toThrow(ConfigError);
-    expect(() => loadConfig(env)).toThrow(message);
+    expect(() => loadConfig({ ...SIGN_IN, ...env })).toThrow(ConfigError);
+    expect(() => loadConfig({ ...SIGN_IN, ...env })).toThrow(message);
+  });
+
+  it('never repeats the session secret in its complaint', () => {
+    expect(() => loadConfig({ ...SIGN_IN, SESSION_SECRET: 'short-secret' })).toThrow(/SESSION_SECRET: .*\(value hidden\)/);
+    expect(() => loadConfig({ ...SIGN_IN, SESSION_SECRET: 'short-secret' })).not.toThrow(/short-secret/);
   });
 
   it('treats an empty setting as unset', () => {
-    expect(loadConfig({ PORT: '' }).port).toBe(4300);
+    expect(loadConfig({ ...SIGN_IN, PORT: '' }).port).toBe(4300);
   });
 });

@@ -1,6 +1,9 @@
+import fs from 'node:fs';
 import { z } from 'zod';
 
 const port = z.coerce.number().int().min(0).max(65535);
+const attributeName = z.string().min(1).max(200);
+const booleanSetting = z.enum(['true', 'false']).transform((value) => value === 'true');
 
 /** Every setting the server reads, with defaults for local use on one machine. */
 const configSchema = z.object({
@@ -24,7 +27,61 @@ const configSchema = z.object({
     .refine((url) => ['{z}', '{x}', '{y}'].every((part) => decodeURI(url).includes(part)), 'must contain {z}, {x} and {y}')
     .optional(),
   BASEMAP_ATTRIBUTION: z.string().max(300).optional(),
+
+  /** The address browsers use for Spanledger; the SAML callback and entity id derive from it. Default http://HOST:PORT. */
+  PUBLIC_URL: z.url({ protocol: /^https?$/ }).optional(),
+  /** Proxy hops in front of the server (0: none); needed for Secure cookies behind a TLS-terminating proxy. */
+  TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
+  /** Signs the session cookie: 32 characters or more, kept secret. */
+  SESSION_SECRET: z.string().min(32, 'use at least 32 characters'),
+  SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  SESSION_ABSOLUTE_HOURS: z.coerce.number().int().min(1).max(7 * 24).default(10),
+  /** Secure cookies; defaults to on when PUBLIC_URL is https. */
+  COOKIE_SECURE: booleanSetting.optional(),
+
+  /** The identity provider's single sign-on URL (HTTP-Redirect binding). */
+  SAML_IDP_ENTRY_POINT: z.url({ protocol: /^https?$/ }),
+  /** The identity provider's entity id: the Issuer of its responses. */
+  SAML_IDP_ENTITY_ID: z.string().min(1),
+  /** The identity provider's signing certificate, as PEM text or the path of a PEM file. */
+  SAML_IDP_CERT: z.string().min(1).optional(),
+  SAML_IDP_CERT_FILE: z.string().min(1).optional(),
+  /** Spanledger's own entity id; the Audience the identity provider must name. Default: the metadata URL. */
+  SAML_SP_ENTITY_ID: z.string().min(1).optional(),
+  /** Clock difference tolerated between the identity provider and this server. */
+  SAML_CLOCK_SKEW_SECONDS: z.coerce.number().int().min(0).max(300).default(60),
+  SAML_ATTRIBUTE_EMAIL: attributeName.default('email'),
+  SAML_ATTRIBUTE_DISPLAY_NAME: attributeName.default('displayName'),
+  SAML_ATTRIBUTE_ROLE: attributeName.default('role'),
+  SAML_ATTRIBUTE_DISTRICTS: attributeName.default('districts'),
+  SAML_ATTRIBUTE_ADMIN: attributeName.default('admin'),
 });
+
+/** Names of the assertion attributes that carry each part of a user. */
+export interface SamlAttributeNames {
+  readonly email: string;
+  readonly displayName: string;
+  readonly role: string;
+  readonly districts: string;
+  readonly admin: string;
+}
+
+export interface SamlConfig {
+  readonly idpEntryPoint: string;
+  readonly idpEntityId: string;
+  readonly idpCertificate: string;
+  readonly spEntityId: string;
+  readonly callbackUrl: string;
+  readonly clockSkewMs: number;
+  readonly attributes: SamlAttributeNames;
+}
+
+export interface SessionConfig {
+  readonly secret: string;
+  readonly idleTimeoutMs: number;
+  readonly absoluteTimeoutMs: number;
+  readonly secureCookies: boolean;
+}
 
 export interface AppConfig {
   readonly host: string;
@@ -34,9 +91,43 @@ export interface AppConfig {
   readonly frontendDist: string;
   readonly basemapTileUrl: string | null;
   readonly basemapAttribution: string | null;
+  readonly publicUrl: string;
+  readonly trustProxy: number;
+  readonly session: SessionConfig;
+  readonly saml: SamlConfig;
 }
 
 export class ConfigError extends Error {}
+
+/** Settings whose values must never appear in a log or an error message. */
+const SECRET_SETTINGS = new Set(['SESSION_SECRET']);
+
+function describeValue(key: string, env: NodeJS.ProcessEnv): string {
+  if (env[key] === undefined || env[key] === '') return 'not set';
+  return SECRET_SETTINGS.has(key) ? 'value hidden' : `got "${env[key]}"`;
+}
+
+type ParsedSettings = z.output<typeof configSchema>;
+
+const PEM_CERTIFICATE = /-----BEGIN CERTIFICATE-----[\s\S]+?-----END CERTIFICATE-----/;
+
+/** The identity provider's certificate from exactly one of SAML_IDP_CERT and SAML_IDP_CERT_FILE. */
+function readIdpCertificate(c: ParsedSettings): string {
+  if ((c.SAML_IDP_CERT === undefined) === (c.SAML_IDP_CERT_FILE === undefined)) {
+    throw new ConfigError('Invalid configuration:\n  SAML_IDP_CERT / SAML_IDP_CERT_FILE: set exactly one of them');
+  }
+  let text = c.SAML_IDP_CERT;
+  if (c.SAML_IDP_CERT_FILE !== undefined) {
+    try {
+      text = fs.readFileSync(c.SAML_IDP_CERT_FILE, 'utf8');
+    } catch {
+      throw new ConfigError(`Invalid configuration:\n  SAML_IDP_CERT_FILE: cannot read "${c.SAML_IDP_CERT_FILE}"`);
+    }
+  }
+  const pem = PEM_CERTIFICATE.exec(text ?? '')?.[0];
+  if (!pem) throw new ConfigError('Invalid configuration:\n  SAML_IDP_CERT: expected a PEM certificate (-----BEGIN CERTIFICATE-----)');
+  return pem;
+}
 
 /** Reads and checks the configuration; a bad value stops the server with the name of the setting. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -45,10 +136,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   );
   const parsed = configSchema.safeParse(known);
   if (!parsed.success) {
-    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message} (got "${env[String(issue.path[0])]}")`);
+    const lines = parsed.error.issues.map((issue) => `  ${issue.path.join('.')}: ${issue.message} (${describeValue(String(issue.path[0]), env)})`);
     throw new ConfigError(`Invalid configuration:\n${lines.join('\n')}`);
   }
   const c = parsed.data;
+  const publicUrl = (c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`).replace(/\/+$/, '');
   return {
     host: c.HOST,
     port: c.PORT,
@@ -57,5 +149,28 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     frontendDist: c.FRONTEND_DIST,
     basemapTileUrl: c.BASEMAP_TILE_URL ?? null,
     basemapAttribution: c.BASEMAP_ATTRIBUTION ?? null,
+    publicUrl,
+    trustProxy: c.TRUST_PROXY,
+    session: {
+      secret: c.SESSION_SECRET,
+      idleTimeoutMs: c.SESSION_IDLE_MINUTES * 60_000,
+      absoluteTimeoutMs: c.SESSION_ABSOLUTE_HOURS * 3_600_000,
+      secureCookies: c.COOKIE_SECURE ?? publicUrl.startsWith('https:'),
+    },
+    saml: {
+      idpEntryPoint: c.SAML_IDP_ENTRY_POINT,
+      idpEntityId: c.SAML_IDP_ENTITY_ID,
+      idpCertificate: readIdpCertificate(c),
+      spEntityId: c.SAML_SP_ENTITY_ID ?? `${publicUrl}/auth/saml/metadata`,
+      callbackUrl: `${publicUrl}/auth/saml/callback`,
+      clockSkewMs: c.SAML_CLOCK_SKEW_SECONDS * 1000,
+      attributes: {
+        email: c.SAML_ATTRIBUTE_EMAIL,
+        displayName: c.SAML_ATTRIBUTE_DISPLAY_NAME,
+        role: c.SAML_ATTRIBUTE_ROLE,
+        districts: c.SAML_ATTRIBUTE_DISTRICTS,
+        admin: c.SAML_ATTRIBUTE_ADMIN,
+      },
+    },
   };
 }

@@ -8,7 +8,7 @@ describe('API errors and headers', () => {
   let app: Express;
   beforeAll(async () => {
     testDb = await createTestDatabase();
-    app = createTestApp(testDb.db);
+    app = await createTestApp(testDb.db);
   });
   afterAll(() => testDb.drop());
 
@@ -20,15 +20,18 @@ describe('API errors and headers', () => {
     });
   });
 
+  /** A request that passes the XSRF check, as the browser app's would, to reach the body parser. */
+  const post = (path: string) => request(app).post(path).set('Cookie', 'XSRF-TOKEN=token-1234').set('X-XSRF-TOKEN', 'token-1234').set('Content-Type', 'application/json');
+
   it('answers malformed JSON with 400 and no stack trace', async () => {
-    const response = await request(app).post('/api/structures').set('Content-Type', 'application/json').send('{"name":').expect(400);
+    const response = await post('/api/structures').send('{"name":').expect(400);
     expect(response.body.error.code).toBe('malformed_body');
     expect(JSON.stringify(response.body)).not.toMatch(/at .*\.(ts|js):\d+/);
   });
 
   it('answers an oversize body with 413', async () => {
     const big = JSON.stringify({ notes: 'x'.repeat(1024 * 1024 + 10) });
-    const response = await request(app).post('/api/structures').set('Content-Type', 'application/json').send(big).expect(413);
+    const response = await post('/api/structures').send(big).expect(413);
     expect(response.body.error.code).toBe('payload_too_large');
   });
 
@@ -50,7 +53,7 @@ describe('API errors and headers', () => {
   });
 
   it('tells the browser app about a configured tile server and allows its images', async () => {
-    const withTiles = createTestApp(testDb.db, { BASEMAP_TILE_URL: 'https://tiles.example.org/{z}/{x}/{y}.png', BASEMAP_ATTRIBUTION: 'Example tiles' });
+    const withTiles = await createTestApp(testDb.db, { BASEMAP_TILE_URL: 'https://tiles.example.org/{z}/{x}/{y}.png', BASEMAP_ATTRIBUTION: 'Example tiles' });
     const response = await request(withTiles).get('/api/client-config').expect(200);
     expect(response.body).toEqual({ basemapTileUrl: 'https://tiles.example.org/{z}/{x}/{y}.png', basemapAttribution: 'Example tiles' });
     expect(response.headers['content-security-policy']).toMatch(/img-src[^;]*https:\/\/tiles\.example\.org/);

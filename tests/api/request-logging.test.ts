@@ -3,6 +3,7 @@ import request from 'supertest';
 import pino from 'pino';
 import { createApp } from '../../backend/src/app';
 import { loadConfig } from '../../backend/src/config';
+import { testSignInEnv } from '../support/sign-in-settings';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
 
 describe('request logging', () => {
@@ -20,12 +21,12 @@ describe('request logging', () => {
         done();
       },
     });
-    const app = createApp({ config: loadConfig({}), db: testDb.db, logger: pino({ level: 'info' }, sink) });
+    const app = createApp({ config: loadConfig(await testSignInEnv(9)), db: testDb.db, logger: pino({ level: 'info' }, sink) });
 
-    await request(app).get('/api/structures?bbox=bad').set('X-Request-Id', 'journey-0000001').expect(400);
+    await request(app).get('/api/structures?bbox=bad').set('X-Request-Id', 'journey-0000001').expect(401);
 
     const forRequest = lines.filter((line) => line['requestId'] === 'journey-0000001');
-    expect(forRequest.map((line) => line['msg'])).toEqual(expect.arrayContaining([expect.stringMatching(/^Invalid query parameter/), 'request completed']));
-    expect(forRequest.find((line) => line['msg'] === 'request completed')).toMatchObject({ res: { statusCode: 400 } });
+    expect(forRequest.map((line) => line['msg'])).toEqual(expect.arrayContaining(['Sign in to continue', 'request completed']));
+    expect(forRequest.find((line) => line['msg'] === 'request completed')).toMatchObject({ res: { statusCode: 401 } });
   });
 });

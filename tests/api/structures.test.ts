@@ -1,8 +1,7 @@
-import request from 'supertest';
-import type { Express } from 'express';
 import type { StructureFeatureCollection } from '../../shared/src';
-import { createTestApp } from '../support/test-app';
+import { SignInClient } from '../support/sign-in-client';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
+import { startSignInTestBed, type SignInTestBed } from '../support/test-server';
 
 /** Three structures far apart, so that a box can hold any one of them. Invented test data. */
 const STRUCTURES = [
@@ -13,11 +12,22 @@ const STRUCTURES = [
 
 describe('GET /api/structures', () => {
   let testDb: TestDatabase;
-  let app: Express;
+  let bed: SignInTestBed;
+  const inspector = () => new SignInClient(bed.server.url);
+  let signedIn: SignInClient;
+
+  /** GET as a signed-in inspector, with the JSON body parsed. */
+  async function get(path: string, query: Record<string, string> = {}) {
+    const search = new URLSearchParams(query).toString();
+    const response = await signedIn.request(search ? `${path}?${search}` : path);
+    return { status: response.status, headers: response.headers, body: JSON.parse(response.text) };
+  }
 
   beforeAll(async () => {
     testDb = await createTestDatabase();
-    app = createTestApp(testDb.db);
+    bed = await startSignInTestBed(testDb.url);
+    signedIn = inspector();
+    await signedIn.signInAs('bv-staff-1041');
     await testDb.db('structures').insert(
       STRUCTURES.map(({ lon, lat, ...row }) => ({
         ...row,
@@ -30,12 +40,17 @@ describe('GET /api/structures', () => {
       })),
     );
   });
-  afterAll(() => testDb.drop());
+  afterAll(async () => {
+    await bed.stop();
+    await testDb.drop();
+  });
 
   const numbersOf = (body: StructureFeatureCollection) => body.features.map((f) => f.properties.structureNumber);
 
   it('returns every structure as a GeoJSON FeatureCollection in structure-number order', async () => {
-    const response = await request(app).get('/api/structures').expect(200).expect('Content-Type', /application\/geo\+json/);
+    const response = await get('/api/structures');
+    expect(response.status).toBe(200);
+    expect(response.headers.get('content-type')).toMatch(/application\/geo\+json/);
     const body = response.body as StructureFeatureCollection;
     expect(body.type).toBe('FeatureCollection');
     expect(body.truncated).toBe(false);
@@ -59,17 +74,20 @@ describe('GET /api/structures', () => {
   });
 
   it('keeps only the structures inside the bounding box', async () => {
-    const response = await request(app).get('/api/structures').query({ bbox: '-98.5,38.2,-97.5,38.8' }).expect(200);
+    const response = await get('/api/structures', { bbox: '-98.5,38.2,-97.5,38.8' });
+    expect(response.status).toBe(200);
     expect(numbersOf(response.body)).toEqual(['T-002']);
   });
 
   it('returns an empty collection for a box with nothing in it', async () => {
-    const response = await request(app).get('/api/structures').query({ bbox: '10,10,11,11' }).expect(200);
+    const response = await get('/api/structures', { bbox: '10,10,11,11' });
+    expect(response.status).toBe(200);
     expect(response.body).toEqual({ type: 'FeatureCollection', truncated: false, features: [] });
   });
 
   it('cuts the list at the limit and says so', async () => {
-    const response = await request(app).get('/api/structures').query({ limit: '2' }).expect(200);
+    const response = await get('/api/structures', { limit: '2' });
+    expect(response.status).toBe(200);
     expect(numbersOf(response.body)).toEqual(['T-001', 'T-002']);
     expect(response.body.truncated).toBe(true);
   });
@@ -83,14 +101,22 @@ describe('GET /api/structures', () => {
     ['limit', '0', /limit: .*>=\s*1/],
     ['limit', '5001', /limit: .*<=\s*5000/],
   ])('answers 400 naming %s when it is %p', async (parameter, value, message) => {
-    const response = await request(app).get('/api/structures').query({ [parameter]: value }).expect(400);
+    const response = await get('/api/structures', { [parameter]: value });
+    expect(response.status).toBe(400);
     expect(response.body.error.code).toBe('validation_failed');
     expect(response.body.error.message).toMatch(message);
     expect(response.body.error.details.fields).toEqual([{ field: parameter, message: expect.any(String) }]);
   });
 
+  it('answers 401 to a visitor who has not signed in', async () => {
+    const response = await inspector().request('/api/structures');
+    expect(response.status).toBe(401);
+    expect(JSON.parse(response.text).error.code).toBe('sign_in_required');
+  });
+
   it('answers 400 for a parameter it does not know', async () => {
-    const response = await request(app).get('/api/structures').query({ box: '1,2,3,4' }).expect(400);
+    const response = await get('/api/structures', { box: '1,2,3,4' });
+    expect(response.status).toBe(400);
     expect(response.body.error.details.fields).toEqual([{ field: 'box', message: 'unknown query parameter' }]);
   });
 });

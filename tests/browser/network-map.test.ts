@@ -2,7 +2,8 @@ import fs from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import type { StructureFeatureCollection } from '../../shared/src';
 import { APP_URL_VARIABLE } from '../support/browser-global-setup';
-import { launchBrowser, recordPageErrors, recordRequests, saveScreenshot } from '../support/browser';
+import { launchBrowser, recordPageErrors, recordRequests, saveScreenshot, signInThroughProvider } from '../support/browser';
+import { SignInClient } from '../support/sign-in-client';
 
 const appUrl = () => {
   const url = process.env[APP_URL_VARIABLE];
@@ -37,8 +38,9 @@ describe('network map journey', () => {
 
   beforeAll(async () => {
     browser = await launchBrowser();
-    const response = await fetch(`${appUrl()}/api/structures?limit=5000`);
-    const all = (await response.json()) as StructureFeatureCollection;
+    const client = new SignInClient(appUrl());
+    await client.signInAs('bv-staff-2013');
+    const all = JSON.parse((await client.request('/api/structures?limit=5000')).text) as StructureFeatureCollection;
     demoStructureNumbers = all.features.map((f) => f.properties.structureNumber).sort();
   });
   afterAll(() => browser.close());
@@ -48,7 +50,7 @@ describe('network map journey', () => {
     const requests = recordRequests(page);
     const pageErrors = recordPageErrors(page);
     const basemap = page.waitForResponse((response) => response.url().endsWith('/basemap/states-10m.json') && response.ok());
-    await page.goto(appUrl());
+    await signInThroughProvider(page, appUrl(), 'bv-staff-2013');
     await basemap;
 
     await page.getByText('Spanledger').first().waitFor();
@@ -68,7 +70,7 @@ describe('network map journey', () => {
 
   it('keeps the list in step with the map extent when the map zooms in', async () => {
     const page = await browser.newPage({ viewport: { width: 1400, height: 900 } });
-    await page.goto(appUrl());
+    await signInThroughProvider(page, appUrl(), 'bv-staff-2013');
     await waitForMapAndListToAgree(page, (count) => count === demoStructureNumbers.length);
 
     const map = page.getByTestId('network-map');

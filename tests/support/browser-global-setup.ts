@@ -1,9 +1,9 @@
-import { loadConfig } from '../../backend/src/config';
-import { startServer } from '../../backend/src/server';
 import { buildFrontendIfChanged } from '../../scripts/lib/frontend-build';
 import { createDatabase, prepareDatabase } from '../../scripts/lib/local-database';
 import { connectionUrl, ensureDatabase } from '../../scripts/lib/postgres-cluster';
 import { registerTeardown } from './global-teardown';
+import { prepareTestSigningKeys } from './sign-in-settings';
+import { startSignInTestBed } from './test-server';
 import { startThrowawayCluster } from './throwaway-cluster';
 
 export const APP_URL_VARIABLE = 'SPANLEDGER_TEST_APP_URL';
@@ -11,12 +11,14 @@ const JOURNEY_DATABASE = 'spanledger_journeys';
 
 /**
  * The browser journeys run against the real product: a built front end served by the real
- * server, over a throw-away cluster holding the demo scenario.
+ * server, over a throw-away cluster holding the demo scenario, signing in through the real local
+ * identity provider.
  */
 export default async function browserGlobalSetup(): Promise<void> {
   await buildFrontendIfChanged();
   const cluster = await startThrowawayCluster();
   registerTeardown(() => cluster.stop());
+  registerTeardown(await prepareTestSigningKeys());
 
   await ensureDatabase(cluster.port, JOURNEY_DATABASE);
   const url = connectionUrl(cluster.port, JOURNEY_DATABASE);
@@ -27,8 +29,7 @@ export default async function browserGlobalSetup(): Promise<void> {
     await db.destroy();
   }
 
-  const config = loadConfig({ PORT: '0', DATABASE_URL: url, LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'warn' });
-  const server = await startServer(config);
-  registerTeardown(() => server.close());
-  process.env[APP_URL_VARIABLE] = server.url;
+  const bed = await startSignInTestBed(url, { LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'warn' });
+  registerTeardown(() => bed.stop());
+  process.env[APP_URL_VARIABLE] = bed.server.url;
 }

@@ -38,3 +38,11 @@ export async function saveScreenshot(page: Page, name: string): Promise<string> 
   await page.screenshot({ path: file, fullPage: false });
   return file;
 }
+
+/** Signs in as a user of the demo authority the way a person does: the sign-in page, then the identity provider's page. */
+export async function signInThroughProvider(page: Page, appUrl: string, subject: string, path = '/'): Promise<void> {
+  await page.goto(`${appUrl}${path}`);
+  await page.getByTestId('sign-in').click();
+  await page.locator(`button[data-subject="${subject}"]`).click();
+  await page.getByTestId('user-name').waitFor();
+}

@@ -4,6 +4,10 @@ export type ErrorCode =
   | 'malformed_body'
   | 'payload_too_large'
   | 'not_found'
+  | 'sign_in_required'
+  | 'forbidden'
+  | 'xsrf_check_failed'
+  | 'sign_in_failed'
   | 'database_unavailable'
   | 'internal_error';
 
@@ -33,5 +37,13 @@ export class AppError extends Error {
 
   static notFound(message: string): AppError {
     return new AppError({ code: 'not_found', status: 404, message });
+  }
+
+  static signInRequired(): AppError {
+    return new AppError({ code: 'sign_in_required', status: 401, message: 'Sign in to continue' });
+  }
+
+  static forbidden(message: string): AppError {
+    return new AppError({ code: 'forbidden', status: 403, message });
   }
 }

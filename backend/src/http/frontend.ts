@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import express, { Router } from 'express';
+import { allow } from '../access/access-policy';
 import type { Logger } from '../logger';
 
 /**
@@ -16,7 +17,8 @@ export function frontendRouter(distFolder: string, logger: Logger): Router {
   }
   // Hashed bundles may be cached for a long time; index.html must always be fresh.
   router.use(express.static(root, { index: false, maxAge: '1y', immutable: true }));
-  router.get('/{*splat}', (_req, res) => {
+  // The page shell holds no data: what it shows comes from the API, which checks who asks.
+  router.get('/{*splat}', allow.public, (_req, res) => {
     if (!fs.existsSync(indexFile)) {
       res.status(503).type('text/plain').send('The front end is not built yet: run `npm run build:frontend`.');
       return;

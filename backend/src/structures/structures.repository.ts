@@ -18,11 +18,11 @@ export interface StructureMapRow {
 
 export interface StructureMapFilter {
   readonly bbox?: BoundingBox;
-  /** Rows to read; the service asks for one more than it returns to learn whether the list was cut. */
-  readonly limit: number;
+  /** Rows to read (all when unset); the map asks for one more than it returns to learn whether the list was cut. */
+  readonly limit?: number;
 }
 
-/** Structures inside a bounding box (GiST index through `&&`), in structure-number order. */
+/** Structures (inside a bounding box when given, through the GiST index and `&&`), in structure-number order. */
 export async function findStructuresForMap(db: Database, { bbox, limit }: StructureMapFilter): Promise<StructureMapRow[]> {
   const st = postgis(db);
   const query = db('structures')
@@ -39,8 +39,8 @@ export async function findStructuresForMap(db: Database, { bbox, limit }: Struct
       st.x('location').as('longitude'),
       st.y('location').as('latitude'),
     )
-    .orderBy('structure_number')
-    .limit(limit);
+    .orderBy('structure_number');
+  if (limit !== undefined) query.limit(limit);
   if (bbox) {
     query.where(st.boundingBoxIntersects('location', st.makeEnvelope(bbox.minLon, bbox.minLat, bbox.maxLon, bbox.maxLat, 4326)));
   }

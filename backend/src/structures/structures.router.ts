@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import { allow } from '../access/access-policy';
 import { structureMapQuery } from '../../../shared/src';
 import type { Database } from '../db/database';
 import { parseRequest } from '../http/validate';
@@ -6,7 +7,7 @@ import { listStructuresForMap } from './structures.service';
 
 export function structuresRouter(db: Database): Router {
   const router = Router();
-  router.get('/structures', async (req, res) => {
+  router.get('/structures', allow.to('view'), async (req, res) => {
     const query = parseRequest(structureMapQuery, req.query, 'query parameter');
     res.type('application/geo+json').json(await listStructuresForMap({ db }, query));
   });

@@ -1,10 +1,36 @@
 import { Routes } from '@angular/router';
 
+import { allowedTo, signedInGuard } from './session/access.guards';
+
 export const routes: Routes = [
   {
     path: '',
     title: 'Network map · Spanledger',
+    canActivate: [signedInGuard],
     loadComponent: () => import('./network-map/network-map.page').then((m) => m.NetworkMapPage),
+  },
+  {
+    path: 'my-role',
+    title: 'What my role can do · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./access/my-role.page').then((m) => m.MyRolePage),
+  },
+  {
+    path: 'register',
+    title: 'Network register · Spanledger',
+    canActivate: [allowedTo('exportRegister')],
+    loadComponent: () => import('./network-register/network-register.page').then((m) => m.NetworkRegisterPage),
+  },
+  {
+    path: 'sign-in',
+    title: 'Sign in · Spanledger',
+    loadComponent: () => import('./session/sign-in.page').then((m) => m.SignInPage),
+  },
+  {
+    path: 'not-allowed',
+    title: 'Not for your role · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./session/not-allowed.page').then((m) => m.NotAllowedPage),
   },
   { path: '**', redirectTo: '' },
 ];

@@ -1,16 +1,36 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatToolbarHarness } from '@angular/material/toolbar/testing';
 import { provideRouter } from '@angular/router';
+import type { SignedInUser } from '@spanledger/shared';
 
 import { App } from './app';
+import { SessionStore } from './session/session.store';
+
+const RATER: SignedInUser = { id: 7, email: 'r@example.org', displayName: 'Priya Halloran', role: 'rater', districts: ['Central District'], admin: false };
 
 describe('App shell', () => {
-  it('shows the product name in the top bar', async () => {
-    TestBed.configureTestingModule({ imports: [App], providers: [provideRouter([])] });
+  async function toolbarText(answer: (server: HttpTestingController) => void): Promise<string[]> {
+    TestBed.configureTestingModule({ imports: [App], providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
     const fixture = TestBed.createComponent(App);
-    const toolbar = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatToolbarHarness);
+    const loaded = TestBed.inject(SessionStore).load();
+    answer(TestBed.inject(HttpTestingController));
+    await loaded;
+    return TestbedHarnessEnvironment.loader(fixture).getHarness(MatToolbarHarness).then((toolbar) => toolbar.getRowsAsText());
+  }
 
-    expect(await toolbar.getRowsAsText()).toEqual([expect.stringMatching(/Spanledger$/)]);
+  it('shows only the product name to a visitor', async () => {
+    const rows = await toolbarText((server) => server.expectOne('api/session').flush({ user: null }));
+    expect(rows).toEqual([expect.stringMatching(/Spanledger$/)]);
+  });
+
+  it("shows the signed-in user's name, role and districts, and only the pages their role opens", async () => {
+    const rows = await toolbarText((server) => server.expectOne('api/session').flush({ user: RATER }));
+    expect(rows[0]).toContain('Priya Halloran');
+    expect(rows[0]).toContain('Rating engineer · Central District');
+    expect(rows[0]).toContain('What my role can do');
+    expect(rows[0]).not.toContain('Network register');
   });
 });

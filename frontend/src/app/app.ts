@@ -1,16 +1,35 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { ROLE_NAMES, changeScope } from '@spanledger/shared';
 
-/** The shell: the product's top bar above whichever page the router shows. */
+import { SessionStore } from './session/session.store';
+
+/** The shell: the product's top bar, with the signed-in user and the pages their role opens, above the page. */
 @Component({
   selector: 'sl-root',
-  imports: [MatToolbarModule, MatIconModule, RouterOutlet],
+  imports: [MatToolbarModule, MatIconModule, MatButtonModule, RouterOutlet, RouterLink, RouterLinkActive],
   template: `
     <mat-toolbar class="top-bar">
       <mat-icon class="product-mark" aria-hidden="true">architecture</mat-icon>
       <span class="product-name">Spanledger</span>
+      @if (user(); as me) {
+        <nav class="pages" aria-label="Pages">
+          <a mat-button routerLink="/" routerLinkActive="active" [routerLinkActiveOptions]="{ exact: true }">Network map</a>
+          @if (session.can('exportRegister')) {
+            <a mat-button routerLink="/register" routerLinkActive="active" data-testid="nav-register">Network register</a>
+          }
+          <a mat-button routerLink="/my-role" routerLinkActive="active">What my role can do</a>
+        </nav>
+        <span class="spacer"></span>
+        <div class="who" data-testid="signed-in-user">
+          <span class="name" data-testid="user-name">{{ me.displayName }}</span>
+          <span class="role" data-testid="user-role">{{ roleName() }} · {{ districtsText() }}</span>
+        </div>
+        <button mat-stroked-button class="sign-out" type="button" data-testid="sign-out" (click)="signOut()">Sign out</button>
+      }
     </mat-toolbar>
     <main class="page">
       <router-outlet />
@@ -19,4 +38,24 @@ import { RouterOutlet } from '@angular/router';
   styleUrl: './app.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class App {}
+export class App {
+  protected readonly session = inject(SessionStore);
+  private readonly router = inject(Router);
+  protected readonly user = this.session.user;
+  protected readonly roleName = computed(() => {
+    const user = this.user();
+    return user ? `${ROLE_NAMES[user.role]}${user.admin ? ' (administrator)' : ''}` : '';
+  });
+  protected readonly districtsText = computed(() => {
+    const user = this.user();
+    if (!user) return '';
+    const scope = changeScope(user);
+    if (scope.kind === 'network') return 'Whole network';
+    return scope.kind === 'districts' ? scope.districts.join(', ') : 'No district';
+  });
+
+  protected async signOut(): Promise<void> {
+    await this.session.signOut();
+    await this.router.navigate(['/sign-in']);
+  }
+}
