@@ -196,7 +196,9 @@ export function rateGirderLine(file: RateFile, rateOptions: RateOptions = {}): R
     const envelope = liveLoadMomentEnvelope({ spanLengthMm, stationsMm, vehicle, impactFactor });
     return { vehicle, momentsNmm: envelope.map((station) => station.totalMomentNmm * distribution.factor) };
   });
-  const phiC = file.damage.length > 0 && policy.resistance.conditionFactorWhenDamageModelled !== null
+  // Only recorded damage counts as modelled; the strand-loss margin's trial breaks are hypothetical.
+  const damageModelled = file.damage.some((entry) => !entry.hypothetical);
+  const phiC = damageModelled && policy.resistance.conditionFactorWhenDamageModelled !== null
     ? policy.resistance.conditionFactorWhenDamageModelled
     : conditionFactor(policy, file.condition.superstructure);
   const phiS = systemFactor(policy, file.span.girderCount);

@@ -1,4 +1,5 @@
 import type { DamageEntry } from '../calc-file/girder';
+import { applyStrandDamage } from '../calc-file/strand-damage';
 import type { RateFile } from '../calc-file/rate-file';
 import { developmentLengthMm } from '../capacity/development';
 import { controllingRatings, rateGirderLine, type ControllingRating, type RatingStation } from './rate';
@@ -55,9 +56,14 @@ export function strandLossMargin(
   const taken: { rowId: string; index: number }[] = [];
   const breaks: DamageEntry[] = [];
   for (const strand of candidateStrands(strands, atMm)) {
+    const trial: DamageEntry = { kind: 'lost-strands', rowId: strand.rowId, strands: [strand.index], fromM: lowest.xM, toM: lowest.xM, hypothetical: true };
+    const damage = [...file.damage, ...breaks, trial];
+    // Damage is assigned to strands once for the whole span, so a strand already broken
+    // elsewhere cannot take a second break here: leave it out rather than count a break that did not happen.
+    if (applyStrandDamage(file.girder.strandRows, damage).strandsByEntry[damage.length - 1]!.length === 0) continue;
     taken.push(strand);
-    breaks.push({ kind: 'lost-strands', rowId: strand.rowId, strands: [strand.index], fromM: lowest.xM, toM: lowest.xM, hypothetical: true });
-    const local = rateGirderLine({ ...file, damage: [...file.damage, ...breaks] }, { onlyNearMm: near });
+    breaks.push(trial);
+    const local = rateGirderLine({ ...file, damage }, { onlyNearMm: near });
     const low = lowestLegal(local.summary.controlling);
     if (Math.min(low?.ratingFactor ?? Infinity, elsewhere?.ratingFactor ?? Infinity) < 1) return { count: taken.length, strands: taken, atXM: lowest.xM };
   }
