@@ -9,6 +9,7 @@ import { xsrfProtection } from './auth/xsrf';
 import type { AppConfig } from './config';
 import type { Database } from './db/database';
 import type { Logger } from './logger';
+import { calcRouter } from './calc/calc.router';
 import { clientConfigRouter } from './client-config/client-config.router';
 import { healthRouter } from './health/health.router';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
@@ -53,6 +54,7 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   api.use(meRouter());
   api.use(structuresRouter(db));
   api.use(networkRegisterRouter(db));
+  api.use(calcRouter());
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -30,7 +30,7 @@ export class SignInClient {
     this.cookies.set(name, value);
   }
 
-  async request(pathOrUrl: string, init: { method?: string; form?: Record<string, string>; xsrf?: boolean } = {}): Promise<ClientResponse> {
+  async request(pathOrUrl: string, init: { method?: string; form?: Record<string, string>; json?: unknown; xsrf?: boolean } = {}): Promise<ClientResponse> {
     const url = pathOrUrl.startsWith('http') ? pathOrUrl : `${this.appUrl}${pathOrUrl}`;
     const headers: Record<string, string> = {};
     const ownSite = url.startsWith(this.appUrl);
@@ -38,10 +38,12 @@ export class SignInClient {
     const xsrfToken = this.cookies.get('XSRF-TOKEN');
     if (ownSite && init.xsrf !== false && xsrfToken) headers['x-xsrf-token'] = decodeURIComponent(xsrfToken);
     if (init.form) headers['content-type'] = 'application/x-www-form-urlencoded';
+    if (init.json !== undefined) headers['content-type'] = 'application/json';
+    const body = init.form ? new URLSearchParams(init.form).toString() : init.json !== undefined ? JSON.stringify(init.json) : undefined;
     const response = await fetch(url, {
-      method: init.method ?? (init.form ? 'POST' : 'GET'),
+      method: init.method ?? (body !== undefined ? 'POST' : 'GET'),
       headers,
-      body: init.form ? new URLSearchParams(init.form).toString() : undefined,
+      body,
       redirect: 'manual',
     });
     if (ownSite) this.keepCookies(response.headers.getSetCookie());
