@@ -1,7 +1,7 @@
 import type { PointMm, PolygonMm, RingMm } from './polygon';
 
-/** Even–odd ray casting on one ring; a point on the ring itself counts as inside. */
-function ringContains([x, y]: PointMm, ring: RingMm): 'inside' | 'outside' | 'edge' {
+/** Where a point lies against one ring, by even–odd ray casting: inside, outside, or on the ring itself. */
+export function ringContainsPointMm([x, y]: PointMm, ring: RingMm): 'inside' | 'outside' | 'edge' {
   let inside = false;
   for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
     const [xi, yi] = ring[i]!;
@@ -19,6 +19,6 @@ function ringContains([x, y]: PointMm, ring: RingMm): 'inside' | 'outside' | 'ed
  * Points on a boundary count as in the material, so that a strand or a spall edge may touch it.
  */
 export function polygonContainsPointMm(polygon: PolygonMm, point: PointMm): boolean {
-  if (ringContains(point, polygon.outer) === 'outside') return false;
-  return polygon.holes.every((hole) => ringContains(point, hole) !== 'inside');
+  if (ringContainsPointMm(point, polygon.outer) === 'outside') return false;
+  return polygon.holes.every((hole) => ringContainsPointMm(point, hole) !== 'inside');
 }

@@ -10,4 +10,4 @@ export {
 } from './properties';
 export { clipPolygonToBand } from './clip';
 export { integrateOverBand, widthAtMm, type BandIntegral } from './band-integration';
-export { polygonContainsPointMm } from './contains';
+export { polygonContainsPointMm, ringContainsPointMm } from './contains';

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { ringContainsPointMm } from '../geometry/contains';
 
 /**
  * The girder cross-sections of the calculation file (`girder.section`), each a zod schema that
@@ -181,7 +182,7 @@ export const polygonSectionSchema = z
     if (lowestYMm !== 0) report(ctx, ['pointsMm'], `the lowest point must be at y = 0 (the soffit), not ${lowestYMm}`);
     holesMm.forEach((hole, h) => {
       if (!isSoundRing(hole, ['holesMm', h], 'hole', ctx)) return;
-      const outside = hole.findIndex((point) => !isStrictlyInside(point, pointsMm));
+      const outside = hole.findIndex((point) => ringContainsPointMm(point, pointsMm) !== 'inside');
       if (outside >= 0) report(ctx, ['holesMm', h, outside], 'hole points must lie inside the outline');
     });
   });
@@ -220,19 +221,6 @@ function crossesItself(ring: Ring): boolean {
   return false;
 }
 
-/** Even–odd ray casting; a point on the outline counts as outside. */
-function isStrictlyInside([x, y]: readonly [number, number], ring: Ring): boolean {
-  let inside = false;
-  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) {
-    const [xi, yi] = ring[i]!;
-    const [xj, yj] = ring[j]!;
-    const cross = (xj - xi) * (y - yi) - (yj - yi) * (x - xi);
-    const onEdge = cross === 0 && Math.min(xi, xj) <= x && x <= Math.max(xi, xj) && Math.min(yi, yj) <= y && y <= Math.max(yi, yj);
-    if (onEdge) return false;
-    if (yi > y !== yj > y && x < xi + ((y - yi) / (yj - yi)) * (xj - xi)) inside = !inside;
-  }
-  return inside;
-}
 
 /** Any girder section of the calculation file, told apart by `shape`. */
 export const sectionShapeSchema = z.discriminatedUnion('shape', [
