@@ -18,6 +18,9 @@ import { requestLogging } from './http/request-logging';
 import { securityHeaders } from './http/security-headers';
 import { networkRegisterRouter } from './network-register/network-register.router';
 import { structuresRouter } from './structures/structures.router';
+import { spansRouter } from './spans/spans.router';
+import { girdersRouter } from './girders/girders.router';
+import { libraryRouter } from './library/library.router';
 
 export interface AppDependencies {
   readonly config: AppConfig;
@@ -53,6 +56,9 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   api.use(clientConfigRouter(config));
   api.use(meRouter());
   api.use(structuresRouter(db));
+  api.use(spansRouter(db));
+  api.use(girdersRouter(db));
+  api.use(libraryRouter(db));
   api.use(networkRegisterRouter(db));
   api.use(calcRouter());
   api.use(apiNotFound);

@@ -1,6 +1,8 @@
 import path from 'node:path';
 import { createDatabase, migrationConfig, type Database } from '../../backend/src/db/database';
 import { runDataLoadOnce } from '../../backend/src/db/data-loads';
+import { syncReferenceLibrary } from '../../backend/src/library/reference-library';
+import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { DATA_DIR } from './project-paths';
@@ -8,18 +10,21 @@ import { connectionUrl, ensureDatabase, startCluster, waitUntilAccepting, type C
 
 export const DEMO_DATA_LOAD = 'demo-scenario';
 export const DEMO_INVENTORY_LOAD = 'demo-inventory';
+export const DEMO_CONDITIONS_LOAD = 'demo-conditions';
 
 /** The project-local cluster used by `npm start`: kept between runs, durable defaults. */
 export function localClusterSettings(port: number): ClusterSettings {
   return { dataDir: path.join(DATA_DIR, 'postgres'), port, disposable: false };
 }
 
-/** Brings the schema up to date and loads the demo scenario once. */
+/** Brings the schema up to date, copies in the engine's reference library, and loads the demo scenario once. */
 export async function prepareDatabase(db: Database, { loadDemo }: { loadDemo: boolean }): Promise<{ migrations: string[]; demoLoaded: boolean }> {
   const [, migrations] = (await db.migrate.latest(migrationConfig)) as [number, string[]];
+  await syncReferenceLibrary(db);
   const demoLoaded = loadDemo ? await runDataLoadOnce(db, DEMO_DATA_LOAD, seedDemoStructures) : false;
   // A database from before the inventory existed gets the demo girders once too.
   if (loadDemo) await runDataLoadOnce(db, DEMO_INVENTORY_LOAD, seedDemoInventory);
+  if (loadDemo) await runDataLoadOnce(db, DEMO_CONDITIONS_LOAD, seedDemoConditions);
   return { migrations, demoLoaded };
 }
 

@@ -1,4 +1,4 @@
-import { bboxParameter, structureMapQuery } from './structures';
+import { bboxParameter } from './structures';
 
 describe('bboxParameter', () => {
   it('reads west, south, east, north in that order', () => {
@@ -19,21 +19,5 @@ describe('bboxParameter', () => {
     const result = bboxParameter.safeParse(text);
     expect(result.success).toBe(false);
     expect(result.error?.issues[0]?.message).toMatch(message);
-  });
-});
-
-describe('structureMapQuery', () => {
-  it('defaults the limit and leaves the box open', () => {
-    expect(structureMapQuery.parse({})).toEqual({ limit: 1000 });
-  });
-
-  it('reads the limit as a whole number within range', () => {
-    expect(structureMapQuery.parse({ limit: '250' }).limit).toBe(250);
-    expect(structureMapQuery.safeParse({ limit: '2.5' }).success).toBe(false);
-    expect(structureMapQuery.safeParse({ limit: '5001' }).success).toBe(false);
-  });
-
-  it('rejects parameters it does not know', () => {
-    expect(structureMapQuery.safeParse({ sort: 'name' }).success).toBe(false);
   });
 });

@@ -39,18 +39,6 @@ export const bboxParameter = z.string().transform((text, ctx): BoundingBox => {
   return { minLon, minLat, maxLon, maxLat };
 });
 
-/** Query of `GET /api/structures`: an optional bounding box and a page size. */
-export const structureMapQuery = z.strictObject({
-  bbox: bboxParameter.optional(),
-  limit: z
-    .string()
-    .regex(/^\d+$/, 'expected a whole number')
-    .transform(Number)
-    .pipe(z.number().int().min(1).max(MAX_STRUCTURES_PER_REQUEST))
-    .optional()
-    .default(DEFAULT_STRUCTURES_PER_REQUEST),
-});
-export type StructureMapQuery = z.output<typeof structureMapQuery>;
 
 /** What the map and its side list know of one structure. */
 export interface StructureSummary {
@@ -66,11 +54,22 @@ export interface StructureSummary {
   readonly adt: number | null;
   /** Average daily truck traffic, trucks per day. */
   readonly adtt: number | null;
+  readonly status: 'open' | 'posted' | 'closed';
+  /** The lowest of the deck, superstructure and substructure condition ratings (0–9), or null. */
+  readonly lowestCondition: number | null;
+  /** Lowest legal-load rating factor of the rating of record; null when not rated. */
+  readonly legalRatingFactor: number | null;
+  /** Design-load inventory rating factor of the rating of record; null when not rated. */
+  readonly designInventoryRatingFactor: number | null;
 }
 
 export type StructureFeature = Feature<Point, StructureSummary>;
 
-/** `GET /api/structures` answers a GeoJSON FeatureCollection; `truncated` says the limit cut it short. */
+/**
+ * `GET /api/structures` answers a GeoJSON FeatureCollection (RFC 7946 allows foreign members):
+ * `total` counts every structure that matches, `truncated` says the page holds fewer.
+ */
 export interface StructureFeatureCollection extends FeatureCollection<Point, StructureSummary> {
   readonly truncated: boolean;
+  readonly total: number;
 }

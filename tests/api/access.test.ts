@@ -72,7 +72,7 @@ describe('access rules on every route', () => {
     expect(response?.headers.get('content-type')).toMatch(/^text\/csv/);
     expect(response?.headers.get('content-disposition')).toMatch(/attachment; filename="?network-register-\d{4}-\d{2}-\d{2}\.csv"?/);
     const lines = (response?.text ?? '').trim().split('\r\n');
-    expect(lines[0]).toBe('Structure number,Name,Route carried,Feature crossed,District,Latitude,Longitude,Year built,ADT (vehicles/day),ADTT (trucks/day)');
+    expect(lines[0]).toBe('Structure number,Name,Route carried,Feature crossed,District,Latitude,Longitude,Year built,ADT (vehicles/day),ADTT (trucks/day),Year of last major work,Skew (degrees),Status,Deck condition,Superstructure condition,Substructure condition,Condition rated on');
     const structures = Number((await testDb.db('structures').count({ n: '*' }).first())?.n);
     expect(lines.filter((line) => /^BV-/.test(line))).toHaveLength(structures);
     expect(lines[lines.length - 1]).toMatch(/^"?Caution: Results support, and do not replace/);

@@ -2,6 +2,7 @@ import { parseRateFile, rateGirderLine } from '../../shared/src';
 import { girderCalcFileParts, type StoredGirder, type StoredSpan } from '../../backend/src/girders/girder-calc-file';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
+import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
 
 describe('every stored girder exports to a calculation file the engine accepts', () => {
@@ -10,7 +11,8 @@ describe('every stored girder exports to a calculation file the engine accepts',
     testDb = await createTestDatabase();
     await seedDemoStructures(testDb.db);
     await seedDemoInventory(testDb.db);
-  });
+    await seedDemoConditions(testDb.db);
+  }, 60_000);
   afterAll(() => testDb.drop());
 
   async function rateFilesOfAllGirders() {

@@ -69,6 +69,10 @@ describe('GET /api/structures', () => {
         yearBuilt: 1975,
         adt: 1200,
         adtt: 120,
+        status: 'open',
+        lowestCondition: null,
+        legalRatingFactor: null,
+        designInventoryRatingFactor: null,
       },
     });
   });
@@ -82,7 +86,7 @@ describe('GET /api/structures', () => {
   it('returns an empty collection for a box with nothing in it', async () => {
     const response = await get('/api/structures', { bbox: '10,10,11,11' });
     expect(response.status).toBe(200);
-    expect(response.body).toEqual({ type: 'FeatureCollection', truncated: false, features: [] });
+    expect(response.body).toEqual({ type: 'FeatureCollection', total: 0, truncated: false, features: [] });
   });
 
   it('cuts the list at the limit and says so', async () => {
@@ -90,6 +94,7 @@ describe('GET /api/structures', () => {
     expect(response.status).toBe(200);
     expect(numbersOf(response.body)).toEqual(['T-001', 'T-002']);
     expect(response.body.truncated).toBe(true);
+    expect(response.body.total).toBe(3);
   });
 
   it.each([

@@ -4,6 +4,8 @@ export type ErrorCode =
   | 'malformed_body'
   | 'payload_too_large'
   | 'not_found'
+  | 'version_conflict'
+  | 'already_exists'
   | 'sign_in_required'
   | 'forbidden'
   | 'xsrf_check_failed'
@@ -37,6 +39,20 @@ export class AppError extends Error {
 
   static notFound(message: string): AppError {
     return new AppError({ code: 'not_found', status: 404, message });
+  }
+
+  /** Someone changed the record after the client read it; `current` lets the client show what it is now. */
+  static versionConflict(what: string, current: unknown): AppError {
+    return new AppError({
+      code: 'version_conflict',
+      status: 409,
+      message: `${what} was changed by someone else after you opened it; reload to see the current values, then make your change again`,
+      details: { current },
+    });
+  }
+
+  static alreadyExists(message: string, field: string): AppError {
+    return new AppError({ code: 'already_exists', status: 409, message, details: { fields: [{ field, message }] } });
   }
 
   static signInRequired(): AppError {

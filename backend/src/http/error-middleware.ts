@@ -19,9 +19,18 @@ function fromBodyParser(error: unknown): AppError | null {
   return null;
 }
 
+/**
+ * A unique key the database refused: two people adding the same thing at the same moment. The
+ * services check first and name the field; this covers the race between the check and the write.
+ */
+function fromDatabase(error: unknown): AppError | null {
+  if (typeof error !== 'object' || error === null || (error as { code?: unknown }).code !== '23505') return null;
+  return new AppError({ code: 'already_exists', status: 409, message: 'Someone else has just added a record with the same key; reload and try again', cause: error });
+}
+
 /** The one place errors become responses: `{ error: { code, message, details }, requestId }`, never a stack. */
 export const errorMiddleware: ErrorRequestHandler = (error: unknown, req, res, _next) => {
-  const known = error instanceof AppError ? error : fromBodyParser(error);
+  const known = error instanceof AppError ? error : (fromBodyParser(error) ?? fromDatabase(error));
   const appError =
     known ?? new AppError({ code: 'internal_error', status: 500, message: 'Something went wrong on the server; quote the request id when reporting it' });
   if (known === null) req.log.error({ err: error }, 'unhandled error');

@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import { z } from 'zod';
 import { AppError } from './app-error';
 
 export interface InvalidField {
@@ -7,7 +7,7 @@ export interface InvalidField {
   readonly message: string;
 }
 
-type RequestPart = 'query parameter' | 'body field';
+type RequestPart = 'query parameter' | 'body field' | 'path parameter';
 
 /** Checks one part of a request against its schema and answers 400 naming every bad field. */
 export function parseRequest<S extends z.ZodType>(schema: S, value: unknown, part: RequestPart): z.output<S> {
@@ -26,4 +26,14 @@ export function parseRequest<S extends z.ZodType>(schema: S, value: unknown, par
     message: `Invalid ${part}${fields.length > 1 ? 's' : ''}: ${summary}`,
     details: { fields },
   });
+}
+
+/** The `:id` of a route such as `/structures/:id`: a positive whole number, else 400 naming `id`. */
+export const idParameters = z.strictObject({
+  id: z.string().regex(/^[1-9]\d{0,9}$/, 'expected a positive whole number').transform(Number),
+});
+
+/** Reads the `:id` path parameter. */
+export function idFrom(params: unknown): number {
+  return parseRequest(idParameters, params, 'path parameter').id;
 }

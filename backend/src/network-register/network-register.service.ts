@@ -1,10 +1,10 @@
 import { RESULT_CAUTION } from '../../../shared/src';
 import type { Database } from '../db/database';
-import { findStructuresForMap, type StructureMapRow } from '../structures/structures.repository';
+import { findAllStructures, type StructureRow } from '../structures/structures.repository';
 
 interface Column {
   readonly heading: string;
-  readonly value: (row: StructureMapRow) => string | number | null;
+  readonly value: (row: StructureRow) => string | number | null;
 }
 
 const COLUMNS: readonly Column[] = [
@@ -18,6 +18,13 @@ const COLUMNS: readonly Column[] = [
   { heading: 'Year built', value: (row) => row.year_built },
   { heading: 'ADT (vehicles/day)', value: (row) => row.adt },
   { heading: 'ADTT (trucks/day)', value: (row) => row.adtt },
+  { heading: 'Year of last major work', value: (row) => row.year_last_major_work },
+  { heading: 'Skew (degrees)', value: (row) => row.skew_deg },
+  { heading: 'Status', value: (row) => row.status },
+  { heading: 'Deck condition', value: (row) => row.deck_condition },
+  { heading: 'Superstructure condition', value: (row) => row.superstructure_condition },
+  { heading: 'Substructure condition', value: (row) => row.substructure_condition },
+  { heading: 'Condition rated on', value: (row) => row.condition_rated_on },
 ];
 
 /**
@@ -35,7 +42,7 @@ const csvLine = (fields: ReadonlyArray<string | number | null>) => fields.map(cs
 
 /** The network register as CSV: every structure, then the caution every export carries. */
 export async function networkRegisterCsv({ db }: { db: Database }): Promise<string> {
-  const rows = await findStructuresForMap(db, {});
+  const rows = await findAllStructures(db);
   const lines = [csvLine(COLUMNS.map((column) => column.heading)), ...rows.map((row) => csvLine(COLUMNS.map((column) => column.value(row)))), '', csvLine([`Caution: ${RESULT_CAUTION}`])];
   return `${lines.join('\r\n')}\r\n`;
 }

@@ -1,48 +1,199 @@
-import type { BoundingBox } from '../../../shared/src';
-import { postgis, type Database } from '../db/database';
+import type { Knex } from 'knex';
+import { RATING_BANDS, type StructureListQuery, type StructureSortKey, type StructureStatus } from '../../../shared/src';
+import { postgis, type Database, type Transaction } from '../db/database';
 
-/** One row of `structures` as the map needs it, with the location split into degrees. */
-export interface StructureMapRow {
+/** One row of `structures` with the location split into degrees and the change stamps' user names. */
+export interface StructureRow {
   id: number;
   structure_number: string;
   name: string;
   route_carried: string;
   feature_crossed: string;
   district: string;
-  year_built: number | null;
-  adt: number | null;
-  adtt: number | null;
   longitude: number;
   latitude: number;
+  year_built: number | null;
+  year_last_major_work: number | null;
+  adt: number | null;
+  adtt: number | null;
+  skew_deg: number;
+  deck_condition: number | null;
+  superstructure_condition: number | null;
+  substructure_condition: number | null;
+  condition_rated_on: string | null;
+  status: StructureStatus;
+  notes: string;
+  lowest_condition: number | null;
+  rating_of_record_legal_rf: number | null;
+  rating_of_record_inventory_rf: number | null;
+  rating_of_record_approved_at: Date | null;
+  version: number;
+  created_at: Date;
+  updated_at: Date;
+  created_by_name: string | null;
+  updated_by_name: string | null;
 }
 
-export interface StructureMapFilter {
-  readonly bbox?: BoundingBox;
-  /** Rows to read (all when unset); the map asks for one more than it returns to learn whether the list was cut. */
-  readonly limit?: number;
+/** The columns people edit, as written to the table (the location is written as a point). */
+export type StructureColumns = Partial<
+  Pick<
+    StructureRow,
+    | 'structure_number'
+    | 'name'
+    | 'route_carried'
+    | 'feature_crossed'
+    | 'district'
+    | 'year_built'
+    | 'year_last_major_work'
+    | 'adt'
+    | 'adtt'
+    | 'skew_deg'
+    | 'deck_condition'
+    | 'superstructure_condition'
+    | 'substructure_condition'
+    | 'condition_rated_on'
+    | 'status'
+    | 'notes'
+  > & { longitude: number; latitude: number }
+>;
+
+type Db = Database | Transaction;
+
+const LOWEST_CONDITION = 'least(s.deck_condition, s.superstructure_condition, s.substructure_condition)';
+
+function ratingColumn(basis: StructureListQuery['ratingBasis']): string {
+  return basis === 'legal' ? 's.rating_of_record_legal_rf' : 's.rating_of_record_inventory_rf';
 }
 
-/** Structures (inside a bounding box when given, through the GiST index and `&&`), in structure-number order. */
-export async function findStructuresForMap(db: Database, { bbox, limit }: StructureMapFilter): Promise<StructureMapRow[]> {
+const SORT_EXPRESSIONS: Readonly<Record<Exclude<StructureSortKey, 'ratingFactor'>, string>> = {
+  structureNumber: 's.structure_number',
+  name: 's.name',
+  district: 's.district',
+  yearBuilt: 's.year_built',
+  adt: 's.adt',
+  lowestCondition: LOWEST_CONDITION,
+};
+
+function selectStructureColumns(db: Db, query: Knex.QueryBuilder): Knex.QueryBuilder {
   const st = postgis(db);
-  const query = db('structures')
-    .select(
-      'id',
-      'structure_number',
-      'name',
-      'route_carried',
-      'feature_crossed',
-      'district',
-      'year_built',
-      'adt',
-      'adtt',
-      st.x('location').as('longitude'),
-      st.y('location').as('latitude'),
-    )
-    .orderBy('structure_number');
-  if (limit !== undefined) query.limit(limit);
-  if (bbox) {
-    query.where(st.boundingBoxIntersects('location', st.makeEnvelope(bbox.minLon, bbox.minLat, bbox.maxLon, bbox.maxLat, 4326)));
+  return query.select(
+    's.id',
+    's.structure_number',
+    's.name',
+    's.route_carried',
+    's.feature_crossed',
+    's.district',
+    st.x('s.location').as('longitude'),
+    st.y('s.location').as('latitude'),
+    's.year_built',
+    's.year_last_major_work',
+    's.adt',
+    's.adtt',
+    's.skew_deg',
+    's.deck_condition',
+    's.superstructure_condition',
+    's.substructure_condition',
+    db.raw("to_char(s.condition_rated_on, 'YYYY-MM-DD') as condition_rated_on"),
+    's.status',
+    's.notes',
+    db.raw(`${LOWEST_CONDITION} as lowest_condition`),
+    's.rating_of_record_legal_rf',
+    's.rating_of_record_inventory_rf',
+    's.rating_of_record_approved_at',
+    's.version',
+    's.created_at',
+    's.updated_at',
+    'created_by.display_name as created_by_name',
+    'updated_by.display_name as updated_by_name',
+  );
+}
+
+/** `%` and `_` typed by a person are meant literally in a search. */
+const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/** The filters of a structure list, shared by the page of rows and the count of all of them. */
+function applyFilters(db: Db, query: Knex.QueryBuilder, filter: StructureListQuery): Knex.QueryBuilder {
+  const st = postgis(db);
+  const { bbox, district, status, ratingBand, conditionAtMost, search } = filter;
+  if (bbox) query.where(st.boundingBoxIntersects('s.location', st.makeEnvelope(bbox.minLon, bbox.minLat, bbox.maxLon, bbox.maxLat, 4326)));
+  if (district && district.length > 0) query.whereIn('s.district', district);
+  if (status && status.length > 0) query.whereIn('s.status', status);
+  if (conditionAtMost !== undefined) query.whereRaw(`${LOWEST_CONDITION} <= ?`, [conditionAtMost]);
+  if (search) query.where((q) => q.whereILike('s.structure_number', likePattern(search)).orWhereILike('s.name', likePattern(search)));
+  if (ratingBand && ratingBand.length > 0) {
+    const column = ratingColumn(filter.ratingBasis);
+    query.where((q) => {
+      for (const band of RATING_BANDS.filter((b) => ratingBand.includes(b.key))) {
+        if (band.key === 'not-rated') q.orWhereRaw(`${column} is null`);
+        else q.orWhere((inBand) => {
+          if (band.min !== null) inBand.whereRaw(`${column} >= ?`, [band.min]);
+          if (band.max !== null) inBand.whereRaw(`${column} < ?`, [band.max]);
+        });
+      }
+    });
   }
   return query;
+}
+
+function structuresWithStamps(db: Db): Knex.QueryBuilder {
+  return db({ s: 'structures' })
+    .leftJoin({ created_by: 'users' }, 'created_by.id', 's.created_by')
+    .leftJoin({ updated_by: 'users' }, 'updated_by.id', 's.updated_by');
+}
+
+/** One page of the structures that match, in the asked order (ties by structure number), and how many match in all. */
+export async function findStructures(db: Db, filter: StructureListQuery): Promise<{ rows: StructureRow[]; total: number }> {
+  const { key, descending } = filter.sort;
+  const sortExpression = key === 'ratingFactor' ? ratingColumn(filter.ratingBasis) : SORT_EXPRESSIONS[key];
+  const page = selectStructureColumns(db, applyFilters(db, structuresWithStamps(db), filter))
+    .orderByRaw(`${sortExpression} ${descending ? 'desc' : 'asc'} nulls last, s.structure_number`)
+    .limit(filter.limit)
+    .offset(filter.offset);
+  const count = applyFilters(db, db({ s: 'structures' }), filter).count<{ total: string }[]>({ total: '*' });
+  const [rows, [counted]] = await Promise.all([page as Promise<StructureRow[]>, count]);
+  return { rows, total: Number(counted?.total ?? 0) };
+}
+
+/** Every structure of the register in structure-number order, for exports. */
+export async function findAllStructures(db: Db): Promise<StructureRow[]> {
+  return selectStructureColumns(db, structuresWithStamps(db)).orderBy('s.structure_number');
+}
+
+export async function findStructureById(db: Db, id: number, { forUpdate = false } = {}): Promise<StructureRow | undefined> {
+  const query = selectStructureColumns(db, structuresWithStamps(db)).where('s.id', id).first();
+  // Lock only the structure's own row: the joined users are read, not changed.
+  if (forUpdate) query.forUpdate('s');
+  return query;
+}
+
+/** Districts that hold at least one structure, in name order. */
+export async function findDistricts(db: Db): Promise<string[]> {
+  const rows = await db('structures').distinct('district').orderBy('district');
+  return rows.map((row: { district: string }) => row.district);
+}
+
+function columnsForWrite(db: Db, { longitude, latitude, ...columns }: StructureColumns): Record<string, unknown> {
+  if (longitude === undefined || latitude === undefined) return columns;
+  return { ...columns, location: db.raw('ST_SetSRID(ST_MakePoint(?, ?), 4326)', [longitude, latitude]) };
+}
+
+/** Writes the changed columns when the row still has the version the change was made from; false when it has moved on. */
+export async function updateStructure(trx: Transaction, id: number, expectedVersion: number, columns: StructureColumns, userId: number): Promise<boolean> {
+  const updated = await trx('structures')
+    .where({ id, version: expectedVersion })
+    .update({ ...columnsForWrite(trx, columns), version: trx.raw('version + 1'), updated_by: userId, updated_at: trx.fn.now() });
+  return updated === 1;
+}
+
+export async function insertStructure(trx: Transaction, columns: Required<StructureColumns>, userId: number): Promise<number> {
+  const [row] = await trx('structures')
+    .insert({ ...columnsForWrite(trx, columns), created_by: userId, updated_by: userId })
+    .returning('id');
+  return (row as { id: number }).id;
+}
+
+export async function structureNumberTaken(db: Db, structureNumber: string, exceptId?: number): Promise<boolean> {
+  const query = db('structures').where({ structure_number: structureNumber }).first('id');
+  if (exceptId !== undefined) query.whereNot({ id: exceptId });
+  return (await query) !== undefined;
 }
