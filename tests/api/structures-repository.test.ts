@@ -39,7 +39,7 @@ describe('findStructures with a bounding box', () => {
 
   it('can answer the box test (&&) from the spatial index', async () => {
     // Six rows would be read faster without the index; forbid plain scans inside one transaction to see that it can be used.
-    const plan = await testDb.db.transaction(async (trx) => {
+    const plan = await testDb.db.transaction(async (trx): Promise<{ rows: unknown[] }> => {
       await trx.raw('set local enable_seqscan = off');
       const sql = trx('structures').whereRaw('location && ST_MakeEnvelope(?, ?, ?, ?, 4326)', [-98.5, 37.5, -97.5, 38.5]).select('id').toString();
       return trx.raw(`explain ${sql}`);
