@@ -1,6 +1,7 @@
 /** The public API of Spanledger's shared code: what is not exported here is private. */
 export * from './structures';
 export * from './inventory';
+export * from './girder-record';
 export * from './client-config';
 export * from './access';
 export * from './units';

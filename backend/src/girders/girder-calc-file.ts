@@ -42,8 +42,8 @@ export interface StoredSpan {
   deck_thickness_mm: number;
   haunch_mm: number;
   wearing_surface: Span['wearingSurface'] | null;
-  barriers: Span['barriers'];
-  diaphragms: Span['diaphragms'];
+  barriers: Readonly<Span['barriers']>;
+  diaphragms: Readonly<Span['diaphragms']>;
 }
 
 /**

@@ -1,3 +1,4 @@
+import type { StoredGirder } from './girder-calc-file';
 import type { Database, Transaction } from '../db/database';
 
 /** A girder of a span with what its list shows: its type's name and its strand rows counted. */
@@ -48,4 +49,85 @@ export interface GirderTypeRow {
 
 export async function findGirderTypes(db: Database | Transaction): Promise<GirderTypeRow[]> {
   return db<GirderTypeRow>('girder_types').select('id', 'name', 'section', 'source').orderBy('name');
+}
+
+/** One girder row with where it sits, its type and the name of whoever changed it last. */
+export interface GirderRow {
+  id: number;
+  span_id: number;
+  span_index: number;
+  structure_id: number;
+  structure_number: string;
+  district: string;
+  girder_number: number;
+  position: 'interior' | 'exterior';
+  girder_type_id: number | null;
+  girder_type_name: string | null;
+  type_section: Record<string, unknown> | null;
+  section: Record<string, unknown> | null;
+  section_overrides: Record<string, number>;
+  concrete: StoredGirder['girder']['concrete'];
+  deck_concrete: StoredGirder['girder']['deck_concrete'];
+  tensioning: 'pre' | 'post';
+  losses: Record<string, unknown>;
+  profiles: unknown[];
+  debonding: unknown[];
+  bars: StoredGirder['girder']['bars'];
+  version: number;
+  updated_at: Date;
+  updated_by_name: string | null;
+}
+
+export type StrandRowRecord = StoredGirder['strandRows'][number];
+
+export async function findGirderById(db: Database | Transaction, id: number, { forUpdate = false } = {}): Promise<GirderRow | undefined> {
+  const query = db({ g: 'girders' })
+    .join({ sp: 'spans' }, 'sp.id', 'g.span_id')
+    .join({ s: 'structures' }, 's.id', 'sp.structure_id')
+    .leftJoin({ t: 'girder_types' }, 't.id', 'g.girder_type_id')
+    .leftJoin({ u: 'users' }, 'u.id', 'g.updated_by')
+    .where('g.id', id)
+    .first(
+      'g.*',
+      'sp.span_index',
+      'sp.structure_id',
+      's.structure_number',
+      's.district',
+      't.name as girder_type_name',
+      't.section as type_section',
+      'u.display_name as updated_by_name',
+    );
+  if (forUpdate) query.forUpdate('g');
+  return query;
+}
+
+export async function findStrandRows(db: Database | Transaction, girderId: number): Promise<StrandRowRecord[]> {
+  return db('strand_rows')
+    .where({ girder_id: girderId })
+    .orderBy('row_order')
+    .select('row_key', 'y_mm', 'strand_count', 'x_mm', 'strand_area_mm2', 'strand_diameter_mm', 'fpu_mpa', 'fpy_mpa', 'eps_mpa', 'fpe_mpa', 'bonded', 'unbonded_length_mm');
+}
+
+export async function findGirderTypeById(db: Database | Transaction, id: number): Promise<GirderTypeRow | undefined> {
+  return db<GirderTypeRow>('girder_types').where({ id }).first('id', 'name', 'section', 'source');
+}
+
+/** The girder columns a change writes; JSON columns are sent as text so arrays stay JSON. */
+export type GirderColumns = Pick<GirderRow, 'position' | 'girder_type_id' | 'section' | 'section_overrides' | 'concrete' | 'deck_concrete' | 'tensioning' | 'losses' | 'profiles' | 'debonding' | 'bars'>;
+
+const GIRDER_JSON_COLUMNS = ['section', 'section_overrides', 'concrete', 'deck_concrete', 'losses', 'profiles', 'debonding', 'bars'] as const;
+
+/** Writes the girder and replaces its strand rows as a whole, when the row still has the version read. */
+export async function updateGirder(trx: Transaction, id: number, expectedVersion: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<boolean> {
+  const values: Record<string, unknown> = { ...columns };
+  for (const column of GIRDER_JSON_COLUMNS) values[column] = columns[column] === null ? null : JSON.stringify(columns[column]);
+  const updated = await trx('girders')
+    .where({ id, version: expectedVersion })
+    .update({ ...values, version: trx.raw('version + 1'), updated_by: userId, updated_at: trx.fn.now() });
+  if (updated !== 1) return false;
+  await trx('strand_rows').where({ girder_id: id }).delete();
+  if (strandRows.length > 0) {
+    await trx('strand_rows').insert(strandRows.map((row, rowOrder) => ({ ...row, girder_id: id, row_order: rowOrder, created_by: userId, updated_by: userId })));
+  }
+  return true;
 }

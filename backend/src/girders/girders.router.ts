@@ -1,13 +1,22 @@
 import { Router } from 'express';
-import { allow } from '../access/access-policy';
+import { girderChange } from '../../../shared/src';
+import { allow, signedInUser } from '../access/access-policy';
 import type { Database } from '../db/database';
-import { idFrom } from '../http/validate';
-import { listGirderTypes, listGirdersOfSpan } from './girders.service';
+import { idFrom, parseRequest } from '../http/validate';
+import { changeGirder, getGirder, listGirderTypes, listGirdersOfSpan } from './girders.service';
 
 export function girdersRouter(db: Database): Router {
   const router = Router();
   router.get('/spans/:id/girders', allow.to('view'), async (req, res) => {
     res.json(await listGirdersOfSpan({ db }, idFrom(req.params)));
+  });
+  router.get('/girders/:id', allow.to('view'), async (req, res) => {
+    res.json(await getGirder({ db }, idFrom(req.params)));
+  });
+  router.put('/girders/:id', allow.to('editInventory'), async (req, res) => {
+    const id = idFrom(req.params);
+    const change = parseRequest(girderChange, req.body, 'body field');
+    res.json(await changeGirder({ db, user: signedInUser(req) }, id, change));
   });
   router.get('/girder-types', allow.to('view'), async (_req, res) => {
     res.json(await listGirderTypes({ db }));

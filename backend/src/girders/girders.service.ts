@@ -1,8 +1,14 @@
-import type { GirderSummary, GirderTypeSummary } from '../../../shared/src';
-import type { Database } from '../db/database';
+import { LIBRARY_VEHICLE_IDS, parseRateFile, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
+import { recordAuditEvent } from '../audit/audit-events';
+import { changedFields } from '../audit/changed-fields';
+import { withTransaction, type Database, type Transaction } from '../db/database';
 import { AppError } from '../http/app-error';
-import { findSpanById } from '../spans/spans.repository';
-import { findGirderTypes, findGirdersOfSpan } from './girders.repository';
+import { findSpanById, type SpanRow } from '../spans/spans.repository';
+import { findStructureById } from '../structures/structures.repository';
+import { assertMayEditIn } from '../structures/structures.service';
+import { girderCalcFileParts, type StoredGirder } from './girder-calc-file';
+import { girderColumnsOf, recordPathOf, toGirderRecord } from './girder-record';
+import { findGirderById, findGirderTypeById, findGirderTypes, findGirdersOfSpan, findStrandRows, updateGirder, type GirderRow, type StrandRowRecord } from './girders.repository';
 
 /** The girders of a span across it, with their strand counts. */
 export async function listGirdersOfSpan({ db }: { db: Database }, spanId: number): Promise<GirderSummary[]> {
@@ -26,4 +32,98 @@ export async function listGirdersOfSpan({ db }: { db: Database }, spanId: number
 /** The catalogue of girder shapes, by name; a girder refers to one and may override some of its dimensions. */
 export async function listGirderTypes({ db }: { db: Database }): Promise<GirderTypeSummary[]> {
   return (await findGirderTypes(db)).map((row) => ({ id: row.id, name: row.name, shape: row.section.shape, depthMm: row.section.depthMm ?? null, source: row.source, section: row.section }));
+}
+
+function toGirderDetail(row: GirderRow, strandRows: readonly StrandRowRecord[]): GirderDetail {
+  return {
+    ...toGirderRecord(row, strandRows),
+    id: row.id,
+    spanId: row.span_id,
+    spanIndex: row.span_index,
+    structureId: row.structure_id,
+    structureNumber: row.structure_number,
+    district: row.district,
+    girderNumber: row.girder_number,
+    girderTypeName: row.girder_type_name,
+    section: row.section ?? { ...row.type_section, ...row.section_overrides },
+    version: row.version,
+    updated: { at: row.updated_at.toISOString(), by: row.updated_by_name },
+  };
+}
+
+const girderNotFound = (id: number) => AppError.notFound(`There is no girder with id ${id}`);
+
+export async function getGirder({ db }: { db: Database }, id: number): Promise<GirderDetail> {
+  const row = await findGirderById(db, id);
+  if (!row) throw girderNotFound(id);
+  return toGirderDetail(row, await findStrandRows(db, id));
+}
+
+function invalid(fields: readonly { field: string; message: string }[]): AppError {
+  return new AppError({
+    code: 'validation_failed',
+    status: 400,
+    message: `Invalid body field${fields.length > 1 ? 's' : ''}: ${fields.map((f) => `${f.field}: ${f.message}`).join('; ')}`,
+    details: { fields },
+  });
+}
+
+/** The catalogue type a record names, with its overrides checked against the type's own dimensions. */
+async function typeSectionFor(db: Database | Transaction, record: GirderRecord): Promise<Record<string, unknown> | null> {
+  if (record.girderTypeId === null) return null;
+  const type = await findGirderTypeById(db, record.girderTypeId);
+  if (!type) throw invalid([{ field: 'girderTypeId', message: `there is no girder type with id ${record.girderTypeId}` }]);
+  const unknownKeys = Object.keys(record.sectionOverrides).filter((key) => typeof type.section[key] !== 'number');
+  if (unknownKeys.length > 0) {
+    throw invalid(unknownKeys.map((key) => ({ field: `sectionOverrides.${key}`, message: `the ${type.name} section has no dimension "${key}"` })));
+  }
+  return type.section;
+}
+
+/**
+ * Checks the girder the way a rating will read it: assembles the rating calculation file from the
+ * record and its span and lets the engine's own schema judge it, naming each problem by its
+ * place in the record. A girder that passes can always be rated.
+ */
+function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number): void {
+  const { columns, strandRows } = girderColumnsOf(record);
+  const stored: StoredGirder = { girder: { ...columns, girder_number: row.girder_number }, typeSection, strandRows };
+  const file = {
+    units: 'si',
+    ...girderCalcFileParts(stored, span, skewDeg),
+    // Traffic, condition and vehicle only complete the file; they do not bear on the girder.
+    condition: { superstructure: 9 },
+    traffic: { adtt: 0 },
+    vehicles: [LIBRARY_VEHICLE_IDS[0]],
+  };
+  const parsed = parseRateFile(file);
+  if (!parsed.ok) throw invalid(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
+}
+
+/**
+ * Replaces a girder's record (strand rows as a whole) when the version read is current, inside the
+ * user's districts, after the engine has accepted it; the history keeps each part that changed.
+ */
+export async function changeGirder({ db, user }: { db: Database; user: SignedInUser }, id: number, { version, ...record }: GirderChange): Promise<GirderDetail> {
+  return withTransaction(db, async (trx) => {
+    const row = await findGirderById(trx, id, { forUpdate: true });
+    if (!row) throw girderNotFound(id);
+    assertMayEditIn(user, row.district);
+    const strandRows = await findStrandRows(trx, id);
+    if (row.version !== version) throw AppError.versionConflict(`Girder ${row.girder_number} of span ${row.span_index}`, toGirderDetail(row, strandRows));
+
+    const typeSection = await typeSectionFor(trx, record);
+    const span = (await findSpanById(trx, row.span_id))!;
+    const structure = (await findStructureById(trx, row.structure_id))!;
+    assertRateable(record, typeSection, span, row, structure.skew_deg);
+
+    const changes = changedFields(toGirderRecord(row, strandRows), record);
+    if (changes.fields.length === 0) return toGirderDetail(row, strandRows);
+    const written = girderColumnsOf(record);
+    if (!(await updateGirder(trx, id, version, written.columns, written.strandRows, user.id))) {
+      throw AppError.versionConflict(`Girder ${row.girder_number}`, toGirderDetail(row, strandRows));
+    }
+    await recordAuditEvent({ db: trx, user, action: 'girder.changed', entity: { type: 'girder', id }, before: changes.before, after: changes.after });
+    return toGirderDetail((await findGirderById(trx, id))!, await findStrandRows(trx, id));
+  });
 }
