@@ -69,3 +69,23 @@ export interface GirderDetail extends GirderRecord {
   readonly version: number;
   readonly updated: UserStamp;
 }
+
+const girderTypeFields = {
+  name: z.string().trim().min(1, 'is required').max(120, 'at most 120 characters'),
+  section: sectionShapeSchema,
+  /** The published table the shape comes from, or "from memory — verify", or the owner's own drawing. */
+  source: z.string().trim().min(1, 'name the published table or drawing the dimensions come from').max(500, 'at most 500 characters'),
+};
+
+/** Body of `POST /api/girder-types`. */
+export const newGirderType = z.strictObject(girderTypeFields);
+export type NewGirderType = z.output<typeof newGirderType>;
+
+/** Body of `PATCH /api/girder-types/:id`. */
+export const girderTypeChange = z.strictObject({
+  version: z.number({ error: 'the version you read is required' }).int().positive(),
+  name: girderTypeFields.name.optional(),
+  section: girderTypeFields.section.optional(),
+  source: girderTypeFields.source.optional(),
+});
+export type GirderTypeChange = z.output<typeof girderTypeChange>;

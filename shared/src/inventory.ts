@@ -319,6 +319,9 @@ export interface GirderTypeSummary {
   readonly depthMm: number | null;
   readonly source: string;
   readonly section: Record<string, unknown>;
+  /** Girders of the inventory that use the type. */
+  readonly girderCount: number;
+  readonly version: number;
 }
 
 /** One entry of `GET /api/vehicles` or `GET /api/rating-policies`: a versioned library item. */

@@ -117,4 +117,40 @@ describe('girders API', () => {
     expect(stale.status).toBe(409);
     expect(stale.body.error!.details.current).toMatchObject({ concrete: { elasticModulusMpa: 33_000 }, version: girder.version + 1 });
   });
+
+  describe('girder types', () => {
+    const newType = { name: 'Owner slab beam 450', section: { shape: 'rectangle', widthMm: 900, depthMm: 450 }, source: 'Authority standard drawing SB-450 (demo)' };
+
+    it('lets a rater add a type, named once in any case, with its section checked', async () => {
+      expect((await call('inspector', '/api/girder-types', { json: newType })).status).toBe(403);
+      const added = await call<{ id: number; version: number; girderCount: number }>('raterCentral', '/api/girder-types', { json: newType });
+      expect(added.status).toBe(201);
+      expect(added.body).toMatchObject({ name: newType.name, shape: 'rectangle', depthMm: 450, girderCount: 0, version: 1 });
+      const again = await call('raterEastSouth', '/api/girder-types', { json: { ...newType, name: newType.name.toUpperCase() } });
+      expect(again.status).toBe(409);
+      expect(fieldsOf(again.body)).toEqual(['name']);
+      const bad = await call('raterCentral', '/api/girder-types', { json: { ...newType, name: 'Bad', section: { shape: 'rectangle', widthMm: -1, depthMm: 450 } } });
+      expect(fieldsOf(bad.body)).toEqual(['section.widthMm']);
+    });
+
+    it('changes the section of a type in use only for someone who may change every district using it, and keeps its shape', async () => {
+      const types = (await call<{ id: number; name: string; girderCount: number; version: number; section: Record<string, number | string> }[]>('inspector', '/api/girder-types')).body;
+      const used = types.find((t) => t.girderCount > 0)!;
+      const districts = await testDb.db('girders').join('spans', 'spans.id', 'girders.span_id').join('structures', 'structures.id', 'spans.structure_id').where('girders.girder_type_id', used.id).distinct('structures.district').pluck('district');
+      expect(districts.length).toBeGreaterThan(1);
+      const deeper = { ...used.section, depthMm: (used.section.depthMm as number) + 10 };
+      const refused = await call<{ error: { message: string } }>('raterCentral', `/api/girder-types/${used.id}`, { method: 'PATCH', json: { version: used.version, section: deeper } });
+      expect(refused.status).toBe(403);
+      const renamed = await call<{ version: number }>('raterCentral', `/api/girder-types/${used.id}`, { method: 'PATCH', json: { version: used.version, source: `${used.name}: checked against the owner's copy (demo)` } });
+      expect(renamed.status).toBe(200);
+      expect(renamed.body.version).toBe(used.version + 1);
+      const stale = await call('raterCentral', `/api/girder-types/${used.id}`, { method: 'PATCH', json: { version: used.version, source: 'x' } });
+      expect(stale.status).toBe(409);
+      const added = types.find((t) => t.name === newType.name)!;
+      const reshaped = await call('raterCentral', `/api/girder-types/${added.id}`, { method: 'PATCH', json: { version: added.version, section: { shape: 'tee', flangeWidthMm: 900, flangeThicknessMm: 150, webWidthMm: 300, depthMm: 600 } } });
+      expect(reshaped.status).toBe(200);
+      expect((await call('inspector', '/api/girder-types/99999', { method: 'PATCH', json: { version: 1 } })).status).toBe(403);
+      expect((await call('raterCentral', '/api/girder-types/99999', { method: 'PATCH', json: { version: 1 } })).status).toBe(404);
+    });
+  });
 });

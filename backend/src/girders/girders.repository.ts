@@ -45,10 +45,55 @@ export interface GirderTypeRow {
   name: string;
   section: Record<string, unknown> & { shape: string; depthMm?: number };
   source: string;
+  version: number;
+  girder_count: string;
+}
+
+function girderTypesWithUse(db: Database | Transaction) {
+  return db({ t: 'girder_types' })
+    .leftJoin({ g: 'girders' }, 'g.girder_type_id', 't.id')
+    .groupBy('t.id')
+    .select('t.id', 't.name', 't.section', 't.source', 't.version', db.raw('count(g.id) as girder_count'));
 }
 
 export async function findGirderTypes(db: Database | Transaction): Promise<GirderTypeRow[]> {
-  return db<GirderTypeRow>('girder_types').select('id', 'name', 'section', 'source').orderBy('name');
+  return girderTypesWithUse(db).orderBy('t.name');
+}
+
+export async function findGirderTypeById(db: Database | Transaction, id: number, { forUpdate = false } = {}): Promise<GirderTypeRow | undefined> {
+  if (forUpdate) await db('girder_types').where({ id }).forUpdate().first('id');
+  return girderTypesWithUse(db).where('t.id', id).first();
+}
+
+/** The districts whose girders use a type: changing its shape changes theirs. */
+export async function findDistrictsUsingGirderType(db: Database | Transaction, typeId: number): Promise<string[]> {
+  return db({ g: 'girders' })
+    .join({ sp: 'spans' }, 'sp.id', 'g.span_id')
+    .join({ s: 'structures' }, 's.id', 'sp.structure_id')
+    .where('g.girder_type_id', typeId)
+    .distinct('s.district')
+    .orderBy('s.district')
+    .pluck('s.district');
+}
+
+export async function girderTypeNameTaken(db: Database | Transaction, name: string, exceptId?: number): Promise<boolean> {
+  const query = db('girder_types').whereRaw('lower(name) = lower(?)', [name]).first('id');
+  if (exceptId !== undefined) query.whereNot({ id: exceptId });
+  return (await query) !== undefined;
+}
+
+export async function insertGirderType(trx: Transaction, type: { name: string; section: unknown; source: string }, userId: number): Promise<number> {
+  const [row] = await trx('girder_types').insert({ name: type.name, section: JSON.stringify(type.section), source: type.source, created_by: userId, updated_by: userId }).returning('id');
+  return (row as { id: number }).id;
+}
+
+export async function updateGirderType(trx: Transaction, id: number, expectedVersion: number, changes: { name?: string; section?: unknown; source?: string }, userId: number): Promise<boolean> {
+  const values: Record<string, unknown> = { ...changes };
+  if (changes.section !== undefined) values['section'] = JSON.stringify(changes.section);
+  const updated = await trx('girder_types')
+    .where({ id, version: expectedVersion })
+    .update({ ...values, version: trx.raw('version + 1'), updated_by: userId, updated_at: trx.fn.now() });
+  return updated === 1;
 }
 
 /** One girder row with where it sits, its type and the name of whoever changed it last. */
@@ -108,9 +153,6 @@ export async function findStrandRows(db: Database | Transaction, girderId: numbe
     .select('row_key', 'y_mm', 'strand_count', 'x_mm', 'strand_area_mm2', 'strand_diameter_mm', 'fpu_mpa', 'fpy_mpa', 'eps_mpa', 'fpe_mpa', 'bonded', 'unbonded_length_mm');
 }
 
-export async function findGirderTypeById(db: Database | Transaction, id: number): Promise<GirderTypeRow | undefined> {
-  return db<GirderTypeRow>('girder_types').where({ id }).first('id', 'name', 'section', 'source');
-}
 
 /** The girder columns a change writes; JSON columns are sent as text so arrays stay JSON. */
 export type GirderColumns = Pick<GirderRow, 'position' | 'girder_type_id' | 'section' | 'section_overrides' | 'concrete' | 'deck_concrete' | 'tensioning' | 'losses' | 'profiles' | 'debonding' | 'bars'>;

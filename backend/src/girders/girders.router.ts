@@ -1,9 +1,9 @@
 import { Router } from 'express';
-import { girderChange } from '../../../shared/src';
+import { girderChange, girderTypeChange, newGirderType } from '../../../shared/src';
 import { allow, signedInUser } from '../access/access-policy';
 import type { Database } from '../db/database';
 import { idFrom, parseRequest } from '../http/validate';
-import { changeGirder, getGirder, listGirderTypes, listGirdersOfSpan } from './girders.service';
+import { changeGirder, changeGirderType, createGirderType, getGirder, listGirderTypes, listGirdersOfSpan } from './girders.service';
 
 export function girdersRouter(db: Database): Router {
   const router = Router();
@@ -20,6 +20,15 @@ export function girdersRouter(db: Database): Router {
   });
   router.get('/girder-types', allow.to('view'), async (_req, res) => {
     res.json(await listGirderTypes({ db }));
+  });
+  router.post('/girder-types', allow.to('editInventory'), async (req, res) => {
+    const type = parseRequest(newGirderType, req.body, 'body field');
+    res.status(201).json(await createGirderType({ db, user: signedInUser(req) }, type));
+  });
+  router.patch('/girder-types/:id', allow.to('editInventory'), async (req, res) => {
+    const id = idFrom(req.params);
+    const change = parseRequest(girderTypeChange, req.body, 'body field');
+    res.json(await changeGirderType({ db, user: signedInUser(req) }, id, change));
   });
   return router;
 }

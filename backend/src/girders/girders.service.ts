@@ -1,4 +1,4 @@
-import { LIBRARY_VEHICLE_IDS, parseRateFile, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
+import { LIBRARY_VEHICLE_IDS, parseRateFile, type GirderTypeChange, type NewGirderType, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database, type Transaction } from '../db/database';
@@ -8,7 +8,21 @@ import { findStructureById } from '../structures/structures.repository';
 import { assertMayEditIn } from '../structures/structures.service';
 import { girderCalcFileParts, type StoredGirder } from './girder-calc-file';
 import { girderColumnsOf, recordPathOf, toGirderRecord } from './girder-record';
-import { findGirderById, findGirderTypeById, findGirderTypes, findGirdersOfSpan, findStrandRows, updateGirder, type GirderRow, type StrandRowRecord } from './girders.repository';
+import {
+  findDistrictsUsingGirderType,
+  findGirderById,
+  findGirderTypeById,
+  findGirderTypes,
+  findGirdersOfSpan,
+  findStrandRows,
+  girderTypeNameTaken,
+  insertGirderType,
+  updateGirder,
+  updateGirderType,
+  type GirderRow,
+  type GirderTypeRow,
+  type StrandRowRecord,
+} from './girders.repository';
 
 /** The girders of a span across it, with their strand counts. */
 export async function listGirdersOfSpan({ db }: { db: Database }, spanId: number): Promise<GirderSummary[]> {
@@ -29,9 +43,61 @@ export async function listGirdersOfSpan({ db }: { db: Database }, spanId: number
   }));
 }
 
+function toGirderTypeSummary(row: GirderTypeRow): GirderTypeSummary {
+  return {
+    id: row.id,
+    name: row.name,
+    shape: row.section.shape,
+    depthMm: row.section.depthMm ?? null,
+    source: row.source,
+    section: row.section,
+    girderCount: Number(row.girder_count),
+    version: row.version,
+  };
+}
+
 /** The catalogue of girder shapes, by name; a girder refers to one and may override some of its dimensions. */
 export async function listGirderTypes({ db }: { db: Database }): Promise<GirderTypeSummary[]> {
-  return (await findGirderTypes(db)).map((row) => ({ id: row.id, name: row.name, shape: row.section.shape, depthMm: row.section.depthMm ?? null, source: row.source, section: row.section }));
+  return (await findGirderTypes(db)).map(toGirderTypeSummary);
+}
+
+async function assertTypeNameFree(db: Database | Transaction, name: string, exceptId?: number): Promise<void> {
+  if (await girderTypeNameTaken(db, name, exceptId)) throw AppError.alreadyExists(`The catalogue already has a girder type named "${name}"`, 'name');
+}
+
+/** Adds a shape to the catalogue; it is network-wide, and no girder uses it yet. */
+export async function createGirderType({ db, user }: { db: Database; user: SignedInUser }, type: NewGirderType): Promise<GirderTypeSummary> {
+  return withTransaction(db, async (trx) => {
+    await assertTypeNameFree(trx, type.name);
+    const id = await insertGirderType(trx, type, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'girder-type.created', entity: { type: 'girder-type', id }, after: type });
+    return toGirderTypeSummary((await findGirderTypeById(trx, id))!);
+  });
+}
+
+/**
+ * Changes a catalogue type. Its section is every using girder's section, so a new section needs
+ * the right to change each district whose girders use it, keeps the shape those girders'
+ * overrides refer to, and is refused when the overrides name a dimension it no longer has.
+ */
+export async function changeGirderType({ db, user }: { db: Database; user: SignedInUser }, id: number, { version, ...fields }: GirderTypeChange): Promise<GirderTypeSummary> {
+  return withTransaction(db, async (trx) => {
+    const row = await findGirderTypeById(trx, id, { forUpdate: true });
+    if (!row) throw AppError.notFound(`There is no girder type with id ${id}`);
+    if (row.version !== version) throw AppError.versionConflict(`Girder type ${row.name}`, toGirderTypeSummary(row));
+    const changes = changedFields({ name: row.name, section: row.section, source: row.source }, fields);
+    if (changes.fields.length === 0) return toGirderTypeSummary(row);
+    if (fields.name !== undefined) await assertTypeNameFree(trx, fields.name, id);
+    if (changes.fields.includes('section') && Number(row.girder_count) > 0) {
+      for (const district of await findDistrictsUsingGirderType(trx, id)) assertMayEditIn(user, district);
+      if (fields.section!.shape !== row.section.shape) {
+        throw invalid([{ field: 'section.shape', message: `${row.girder_count} girders use this type as a ${row.section.shape}; add a new type for the new shape` }]);
+      }
+    }
+    if (!(await updateGirderType(trx, id, version, fields, user.id))) throw AppError.versionConflict(`Girder type ${row.name}`, toGirderTypeSummary(row));
+    await recordAuditEvent({ db: trx, user, action: 'girder-type.changed', entity: { type: 'girder-type', id }, before: changes.before, after: changes.after });
+    return toGirderTypeSummary((await findGirderTypeById(trx, id))!);
+  });
 }
 
 function toGirderDetail(row: GirderRow, strandRows: readonly StrandRowRecord[]): GirderDetail {
