@@ -5,10 +5,28 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { BoundingBox, StructureFeature, StructureFeatureCollection } from '@spanledger/shared';
-import { Observable, Subject, catchError, concat, debounceTime, map, of, scan, startWith, switchMap } from 'rxjs';
+import { ActivatedRoute, Router } from '@angular/router';
+import { BoundingBox, RatingBasis, StructureFeatureCollection, StructureSummary } from '@spanledger/shared';
+import {
+  Observable,
+  Subject,
+  catchError,
+  combineLatest,
+  concat,
+  debounceTime,
+  distinctUntilChanged,
+  map,
+  of,
+  scan,
+  startWith,
+  switchMap,
+} from 'rxjs';
 
 import { describeServerError, serverErrorReport } from '../server-errors/server-error';
+import { MapFilters, filtersFromQueryParams, filtersQueryParams, hasActiveFilters, sameFilters, sameStructureQuery } from './map-filters';
+import { MapFiltersComponent } from './map-filters.component';
+import { MapLegendComponent } from './map-legend.component';
+import { StructureCardComponent } from './structure-card.component';
 import { StructureListComponent } from './structure-list.component';
 import { StructureMapComponent } from './structure-map.component';
 import { StructuresClient } from './structures.client';
@@ -20,49 +38,93 @@ const NARROW_SCREEN = '(max-width: 720px)';
 
 type StructuresEvent =
   | { readonly kind: 'loading' }
-  | { readonly kind: 'loaded'; readonly answer: StructureFeatureCollection; readonly wholeNetwork: boolean }
+  | { readonly kind: 'network-loaded'; readonly network: StructureFeatureCollection }
+  /** Nothing filters and the map has not moved yet: the whole network is the answer. */
+  | { readonly kind: 'network-shown' }
+  | { readonly kind: 'loaded'; readonly answer: StructureFeatureCollection }
   | { readonly kind: 'failed'; readonly message: string };
 
 interface StructuresInView {
   readonly loading: boolean;
+  /** What the map and the list show: the structures in view that match the filters. */
   readonly answer: StructureFeatureCollection | null;
   readonly errorMessage: string | null;
-  /** The whole network's structures, once: the map frames itself around them on first load. */
-  readonly networkStructures: readonly StructureFeature[] | null;
+  /** The whole network, unfiltered, once: the map frames itself around it and it counts the network. */
+  readonly network: StructureFeatureCollection | null;
 }
 
-const NOTHING_LOADED: StructuresInView = { loading: true, answer: null, errorMessage: null, networkStructures: null };
+const NOTHING_LOADED: StructuresInView = { loading: true, answer: null, errorMessage: null, network: null };
 
-/** Home page: the map of the network with the list of the structures in view beside it. */
+interface DistrictChoice {
+  readonly names: readonly string[];
+  readonly unavailable: boolean;
+}
+
+/**
+ * Home page: the map of the network with its legend, the filters and the list of the structures
+ * in view beside it, and a card for the structure picked. The filters live in the URL.
+ */
 @Component({
   selector: 'sl-network-map-page',
-  imports: [StructureMapComponent, StructureListComponent, MatProgressBarModule, MatButtonModule, MatIconModule],
+  imports: [
+    StructureMapComponent,
+    StructureListComponent,
+    MapFiltersComponent,
+    MapLegendComponent,
+    StructureCardComponent,
+    MatProgressBarModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
   templateUrl: './network-map.page.html',
   styleUrl: './network-map.page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class NetworkMapPage {
   private readonly structuresClient = inject(StructuresClient);
+  private readonly router = inject(Router);
+  private readonly route = inject(ActivatedRoute);
   private readonly viewChanges = new Subject<BoundingBox>();
+
+  private readonly filters$: Observable<MapFilters> = this.route.queryParamMap.pipe(
+    map(filtersFromQueryParams),
+    distinctUntilChanged(sameFilters),
+  );
+  protected readonly filters = toSignal(this.filters$, { requireSync: true });
 
   // The whole network first; map moves made before it arrives are dropped, since the map is about to be framed anyway.
   private readonly structuresInView$: Observable<StructuresInView> = concat(
-    this.request(this.structuresClient.fetchNetwork(), true),
-    this.viewChanges.pipe(
-      debounceTime(VIEW_CHANGE_DEBOUNCE_MS),
-      switchMap((view) => this.request(this.structuresClient.fetchInBox(view), false)),
-    ),
+    this.request(this.structuresClient.fetchNetwork(), (network) => ({ kind: 'network-loaded', network })),
+    combineLatest([
+      this.filters$.pipe(distinctUntilChanged(sameStructureQuery)),
+      this.viewChanges.pipe(debounceTime(VIEW_CHANGE_DEBOUNCE_MS), startWith(null)),
+    ]).pipe(switchMap(([filters, view]) => this.structuresMatching(filters, view))),
   ).pipe(scan(nextState, NOTHING_LOADED));
 
   private readonly state = toSignal(this.structuresInView$, { initialValue: NOTHING_LOADED });
 
+  private readonly districtChoice = toSignal(
+    this.structuresClient.fetchDistricts().pipe(
+      map((names): DistrictChoice => ({ names, unavailable: false })),
+      catchError(() => of<DistrictChoice>({ names: [], unavailable: true })),
+    ),
+    { initialValue: { names: [], unavailable: false } },
+  );
+
   protected readonly loading = computed(() => this.state().loading);
   protected readonly errorMessage = computed(() => this.state().errorMessage);
-  protected readonly networkStructures = computed(() => this.state().networkStructures);
+  protected readonly networkStructures = computed(() => this.state().network?.features ?? null);
+  protected readonly networkTotal = computed(() => this.state().network?.total ?? null);
   protected readonly structures = computed(() => this.state().answer?.features ?? []);
   protected readonly summaries = computed(() => this.structures().map((structure) => structure.properties));
   protected readonly truncated = computed(() => this.state().answer?.truncated ?? false);
-  protected readonly selectedId = signal<number | null>(null);
+  protected readonly matchingTotal = computed(() => this.state().answer?.total ?? 0);
+  protected readonly filtered = computed(() => hasActiveFilters(this.filters()));
+  protected readonly districts = computed(() => this.districtChoice().names);
+  protected readonly districtsUnavailable = computed(() => this.districtChoice().unavailable);
+  /** The structure on the card; kept when it leaves the view, since the user picked it. */
+  protected readonly selected = signal<StructureSummary | null>(null);
+  protected readonly selectedId = computed(() => this.selected()?.id ?? null);
   /** On narrow screens the list folds away, and starts folded, to leave the map the whole width. */
   protected readonly panelOpen = signal(!inject(BreakpointObserver).isMatched(NARROW_SCREEN));
 
@@ -71,16 +133,42 @@ export class NetworkMapPage {
   }
 
   protected select(id: number): void {
-    this.selectedId.set(id);
+    this.selected.set(this.summaries().find((structure) => structure.id === id) ?? null);
+  }
+
+  protected closeCard(): void {
+    this.selected.set(null);
   }
 
   protected togglePanel(): void {
     this.panelOpen.update((open) => !open);
   }
 
-  private request(answer$: Observable<StructureFeatureCollection>, wholeNetwork: boolean): Observable<StructuresEvent> {
+  /** Puts the filters into the URL (replacing the entry, so Back leaves the map); the URL drives the rest. */
+  protected applyFilters(filters: MapFilters): void {
+    void this.router.navigate([], {
+      relativeTo: this.route,
+      queryParams: filtersQueryParams(filters),
+      queryParamsHandling: 'merge',
+      replaceUrl: true,
+    });
+  }
+
+  protected colourBy(ratingBasis: RatingBasis): void {
+    this.applyFilters({ ...this.filters(), ratingBasis });
+  }
+
+  private structuresMatching(filters: MapFilters, view: BoundingBox | null): Observable<StructuresEvent> {
+    if (view === null && !hasActiveFilters(filters)) return of<StructuresEvent>({ kind: 'network-shown' });
+    return this.request(this.structuresClient.fetchMatching(filters, view), (answer) => ({ kind: 'loaded', answer }));
+  }
+
+  private request(
+    answer$: Observable<StructureFeatureCollection>,
+    loaded: (answer: StructureFeatureCollection) => StructuresEvent,
+  ): Observable<StructuresEvent> {
     return answer$.pipe(
-      map((answer): StructuresEvent => ({ kind: 'loaded', answer, wholeNetwork })),
+      map(loaded),
       catchError((error: unknown) => of<StructuresEvent>({ kind: 'failed', message: failureMessage(error) })),
       startWith<StructuresEvent>({ kind: 'loading' }),
     );
@@ -91,13 +179,12 @@ function nextState(state: StructuresInView, event: StructuresEvent): StructuresI
   switch (event.kind) {
     case 'loading':
       return { ...state, loading: true };
+    case 'network-loaded':
+      return { ...state, loading: false, errorMessage: null, network: event.network };
+    case 'network-shown':
+      return state.network === null ? state : { ...state, loading: false, answer: state.network };
     case 'loaded':
-      return {
-        loading: false,
-        answer: event.answer,
-        errorMessage: null,
-        networkStructures: event.wholeNetwork ? event.answer.features : state.networkStructures,
-      };
+      return { ...state, loading: false, answer: event.answer, errorMessage: null };
     case 'failed':
       return { ...state, loading: false, errorMessage: event.message };
   }

@@ -16,11 +16,16 @@ export function structureFeature(
       yearBuilt: 1978,
       adt: 1450,
       adtt: 120,
+      status: 'open',
+      lowestCondition: 6,
+      legalRatingFactor: null,
+      designInventoryRatingFactor: null,
       ...summary,
     },
   };
 }
 
-export function structureAnswer(features: StructureFeature[], truncated = false): StructureFeatureCollection {
-  return { type: 'FeatureCollection', features, truncated };
+/** The server's answer: `total` counts every match, so it is larger than the page when truncated. */
+export function structureAnswer(features: StructureFeature[], truncated = false, total = features.length): StructureFeatureCollection {
+  return { type: 'FeatureCollection', features, truncated, total };
 }

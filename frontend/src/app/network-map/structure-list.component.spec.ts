@@ -1,14 +1,10 @@
-import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { MatActionListHarness } from '@angular/material/list/testing';
 import { StructureSummary } from '@spanledger/shared';
 
 import { StructureListComponent } from './structure-list.component';
 import { structureFeature } from './structure-features.testing';
-
-/** The class that paints a list item as the selected structure. */
-const SELECTED_ITEM = 'selected-structure';
+import { StructureListHarness } from './structure-list.testing';
 
 function summary(id: number, structureNumber: string, overrides: Partial<StructureSummary> = {}): StructureSummary {
   return structureFeature({ id, structureNumber, ...overrides }).properties;
@@ -16,12 +12,22 @@ function summary(id: number, structureNumber: string, overrides: Partial<Structu
 
 describe('StructureListComponent', () => {
   let fixture: ComponentFixture<StructureListComponent>;
-  let loader: HarnessLoader;
 
-  function show(structures: StructureSummary[], options: { truncated?: boolean; selectedId?: number | null } = {}): void {
+  interface ShowOptions {
+    readonly truncated?: boolean;
+    readonly selectedId?: number | null;
+    readonly total?: number;
+    readonly networkTotal?: number | null;
+    readonly filtered?: boolean;
+  }
+
+  function show(structures: StructureSummary[], options: ShowOptions = {}): void {
     fixture.componentRef.setInput('structures', structures);
     fixture.componentRef.setInput('truncated', options.truncated ?? false);
     fixture.componentRef.setInput('selectedId', options.selectedId ?? null);
+    fixture.componentRef.setInput('total', options.total ?? structures.length);
+    fixture.componentRef.setInput('networkTotal', options.networkTotal ?? null);
+    fixture.componentRef.setInput('filtered', options.filtered ?? false);
   }
 
   function text(testId: string): string | null {
@@ -29,22 +35,24 @@ describe('StructureListComponent', () => {
     return element?.textContent?.trim() ?? null;
   }
 
+  /** The fixture's root is the list itself. */
+  function list(): Promise<StructureListHarness> {
+    return TestbedHarnessEnvironment.harnessForFixture(fixture, StructureListHarness);
+  }
+
   async function listItems() {
-    const list = await loader.getHarness(MatActionListHarness);
-    return list.getItems();
+    return (await list()).getItems();
   }
 
   beforeEach(() => {
     TestBed.configureTestingModule({ imports: [StructureListComponent] });
     fixture = TestBed.createComponent(StructureListComponent);
-    loader = TestbedHarnessEnvironment.loader(fixture);
   });
 
   it('lists exactly the structures given, in structure-number order', async () => {
     show([summary(3, 'NP-0010'), summary(1, 'NP-0002'), summary(2, 'EV-0100'), summary(4, 'NP-0009')]);
 
-    const items = await listItems();
-    const numbers = await Promise.all(items.map(async (item) => (await item.host()).getAttribute('data-structure-number')));
+    const numbers = await (await list()).getStructureNumbers();
     expect(numbers).toEqual(['EV-0100', 'NP-0002', 'NP-0009', 'NP-0010']);
   });
 
@@ -62,22 +70,33 @@ describe('StructureListComponent', () => {
 
     const [item] = await listItems();
     expect(await item!.getTitle()).toBe('SR-0417 Walnut Ford Bridge');
-    expect(await item!.getSecondaryText()).toBe('SR 14 over Walnut River');
-    expect(await item!.getTertiaryText()).toBe('South Hills');
+    expect(await item!.getCrossing()).toBe('SR 14 over Walnut River');
+    expect(await item!.getPlace()).toBe('South Hills');
   });
 
-  it('counts the structures in view', async () => {
+  it('adds the status to the district of a posted or closed structure', async () => {
+    show([summary(1, 'A-1', { status: 'posted', district: 'South Hills' }), summary(2, 'A-2', { status: 'closed', district: 'East Valley' })]);
+
+    const places = await Promise.all((await listItems()).map((item) => item.getPlace()));
+    expect(places).toEqual(['South Hills · Posted', 'East Valley · Closed']);
+  });
+
+  it('counts the structures in view that match, out of the whole network once it is known', async () => {
     show([summary(1, 'A-1'), summary(2, 'A-2'), summary(3, 'A-3')]);
     await fixture.whenStable();
     expect(text('structure-count')).toBe('3 structures in view');
 
-    show([summary(1, 'A-1')]);
+    show([summary(1, 'A-1')], { networkTotal: 48 });
     await fixture.whenStable();
-    expect(text('structure-count')).toBe('1 structure in view');
+    expect(text('structure-count')).toBe('1 of 48 structures in view');
+
+    show([summary(1, 'A-1')], { truncated: true, total: 12_500, networkTotal: 20_000 });
+    await fixture.whenStable();
+    expect(text('structure-count')).toBe('12,500 of 20,000 structures in view');
   });
 
   it('notes when the server cut the list short, and only then', async () => {
-    show([summary(1, 'A-1'), summary(2, 'A-2')], { truncated: true });
+    show([summary(1, 'A-1'), summary(2, 'A-2')], { truncated: true, total: 9 });
     await fixture.whenStable();
     expect(text('truncated-note')).toBe('Only the first 2 are shown. Zoom in to see the rest.');
 
@@ -86,11 +105,15 @@ describe('StructureListComponent', () => {
     expect(text('truncated-note')).toBeNull();
   });
 
-  it('says so when nothing is in view', async () => {
+  it('says so when nothing is in view, and whether filters are why', async () => {
     show([]);
+    await fixture.whenStable();
+    expect(fixture.nativeElement.querySelector('[data-testid="structure-list-item"]')).toBeNull();
+    expect(text('structure-list-empty')).toBe('No structures in this part of the map.');
 
-    expect(await listItems()).toHaveLength(0);
-    expect(fixture.nativeElement.textContent).toContain('No structures in this part of the map.');
+    show([], { filtered: true });
+    await fixture.whenStable();
+    expect(text('structure-list-empty')).toBe('No structures in this part of the map match the filters.');
   });
 
   it('emits the id of the structure picked', async () => {
@@ -108,7 +131,7 @@ describe('StructureListComponent', () => {
   it('highlights the selected structure', async () => {
     show([summary(1, 'A-1'), summary(2, 'A-2'), summary(3, 'A-3')], { selectedId: 2 });
 
-    const highlighted = await Promise.all((await listItems()).map(async (item) => (await item.host()).hasClass(SELECTED_ITEM)));
+    const highlighted = await Promise.all((await listItems()).map((item) => item.isSelected()));
     expect(highlighted).toEqual([false, true, false]);
   });
 });

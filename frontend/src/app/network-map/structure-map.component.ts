@@ -12,13 +12,15 @@ import {
   viewChild,
 } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { BoundingBox, StructureFeature } from '@spanledger/shared';
+import { BoundingBox, RatingBasis, StructureFeature } from '@spanledger/shared';
 import type * as GeoJSON from 'geojson';
 import * as L from 'leaflet';
 import { EMPTY, catchError } from 'rxjs';
 
 import { ClientConfig, ClientConfigClient } from '../client-config/client-config.client';
 import { BasemapClient } from './basemap.client';
+import { MarkerLook, markerLook } from './marker-look';
+import { StructureMarker } from './structure-marker';
 
 const INITIAL_CENTER: L.LatLngTuple = [39.5, -98.35];
 const INITIAL_ZOOM = 4;
@@ -37,19 +39,10 @@ const LAND_STYLE: L.PathOptions = { stroke: false, fillColor: '#eef0ea', fillOpa
 const STATE_BORDER_STYLE: L.PathOptions = { color: '#7d8a90', weight: 1.2, fill: false };
 const COUNTY_BORDER_STYLE: L.PathOptions = { color: '#c3cbcd', weight: 0.6, fill: false };
 
-/** A structure without a rating of record yet. */
-const NOT_RATED_MARKER: L.CircleMarkerOptions = {
-  radius: 6,
-  color: '#263238',
-  weight: 1.5,
-  fillColor: '#9ea7ab',
-  fillOpacity: 0.95,
-};
-const SELECTED_MARKER: L.CircleMarkerOptions = { ...NOT_RATED_MARKER, radius: 10, color: '#00474a', weight: 4 };
-
 /**
- * The Leaflet map of structures over the shipped vector basemap. Kept apart from the page so that
- * the page can be tested where there is no canvas.
+ * The Leaflet map of structures over the shipped vector basemap, one canvas for all markers: each
+ * is coloured by its rating factor of record and shaped by its status. Kept apart from the page so
+ * that the page can be tested where there is no canvas.
  */
 @Component({
   selector: 'sl-structure-map',
@@ -70,6 +63,8 @@ const SELECTED_MARKER: L.CircleMarkerOptions = { ...NOT_RATED_MARKER, radius: 10
 export class StructureMapComponent {
   readonly structures = input.required<readonly StructureFeature[]>();
   readonly selectedId = input<number | null>(null);
+  /** Which rating factor of record colours the markers. */
+  readonly ratingBasis = input<RatingBasis>('legal');
   /** Structures to frame the view around once, when they arrive. */
   readonly fitTo = input<readonly StructureFeature[] | null>(null);
   readonly viewChanged = output<BoundingBox>();
@@ -85,8 +80,7 @@ export class StructureMapComponent {
   private readonly map = signal<L.Map | null>(null);
   private readonly markerRenderer = L.canvas({ padding: 0.5, tolerance: 4 });
   private readonly markerLayer = L.layerGroup();
-  private readonly markersById = new Map<number, L.CircleMarker>();
-  private highlightedId: number | null = null;
+  private readonly markersById = new Map<number, StructureMarker>();
   /** The structure last brought into view, so a marker click does not pan the map under the pointer. */
   private focusedId: number | null = null;
 
@@ -94,7 +88,7 @@ export class StructureMapComponent {
     afterNextRender(() => this.createMap());
     effect(() => {
       const map = this.map();
-      if (map) this.showStructures(map, this.structures(), this.selectedId());
+      if (map) this.showStructures(map, this.structures(), this.selectedId(), this.ratingBasis());
     });
     effect(() => {
       const map = this.map();
@@ -156,8 +150,8 @@ export class StructureMapComponent {
       });
   }
 
-  /** Brings the markers in step with the structures given, keeping those still in view (and any open popup). */
-  private showStructures(map: L.Map, structures: readonly StructureFeature[], selectedId: number | null): void {
+  /** Brings the markers in step with the structures given, keeping (and restyling only as needed) those still in view. */
+  private showStructures(map: L.Map, structures: readonly StructureFeature[], selectedId: number | null, basis: RatingBasis): void {
     const wanted = new Map(structures.map((structure) => [structure.properties.id, structure]));
     for (const [id, marker] of this.markersById) {
       if (!wanted.has(id)) {
@@ -167,40 +161,35 @@ export class StructureMapComponent {
     }
     for (const [id, structure] of wanted) {
       const latLng = latLngOf(structure);
+      const look = markerLook(structure.properties, basis, id === selectedId);
       const existing = this.markersById.get(id);
-      if (existing) existing.setLatLng(latLng);
-      else this.addMarker(id, structure, latLng);
+      if (!existing) {
+        this.addMarker(id, latLng, look);
+        continue;
+      }
+      if (!existing.getLatLng().equals(latLng)) existing.setLatLng(latLng);
+      // Low ratings and the picked structure are drawn last, so that neighbours do not hide them; new markers already are.
+      if (existing.show(look) && (look.belowOne || look.selected)) existing.bringToFront();
     }
-    this.highlight(selectedId);
     if (selectedId !== this.focusedId) this.focus(map, selectedId);
     this.markerCount.set(this.markerLayer.getLayers().length);
   }
 
-  private addMarker(id: number, structure: StructureFeature, latLng: L.LatLng): void {
-    const marker = L.circleMarker(latLng, { ...NOT_RATED_MARKER, renderer: this.markerRenderer })
-      .bindPopup(() => popupContent(structure))
-      .on('click', () => {
-        this.focusedId = id;
-        this.structureClicked.emit(id);
-      });
+  private addMarker(id: number, latLng: L.LatLng, look: MarkerLook): void {
+    const marker = new StructureMarker(latLng, { renderer: this.markerRenderer }).on('click', () => {
+      this.focusedId = id;
+      this.structureClicked.emit(id);
+    });
+    // Styled before it joins the map, so it is drawn once.
+    marker.show(look);
     this.markersById.set(id, marker);
     this.markerLayer.addLayer(marker);
-  }
-
-  private highlight(selectedId: number | null): void {
-    if (this.highlightedId !== null) this.markersById.get(this.highlightedId)?.setStyle(NOT_RATED_MARKER);
-    const selected = selectedId === null ? undefined : this.markersById.get(selectedId);
-    selected?.setStyle(SELECTED_MARKER).bringToFront();
-    this.highlightedId = selected ? selectedId : null;
   }
 
   private focus(map: L.Map, selectedId: number | null): void {
     this.focusedId = selectedId;
     const marker = selectedId === null ? undefined : this.markersById.get(selectedId);
-    if (!marker) return;
-    // Popup first: its own small auto-pan would otherwise cut the centring pan short.
-    marker.openPopup();
-    map.panTo(marker.getLatLng());
+    if (marker) map.panTo(marker.getLatLng());
   }
 
   private fitView(map: L.Map, structures: readonly StructureFeature[]): void {
@@ -222,24 +211,4 @@ function boundingBoxOf(bounds: L.LatLngBounds): BoundingBox {
 function basemapLayer(shapes: GeoJSON.GeoJsonObject, pane: BasemapPane, style: L.PathOptions): L.GeoJSON {
   const renderer = L.canvas({ pane });
   return L.geoJSON(shapes, { interactive: false, attribution: BASEMAP_ATTRIBUTION, style: { ...style, renderer } });
-}
-
-/** Built from text nodes, never HTML, so names from the inventory cannot inject markup. */
-function popupContent(structure: StructureFeature): HTMLElement {
-  const { structureNumber, name, district } = structure.properties;
-  const content = document.createElement('div');
-  content.className = 'structure-popup';
-  content.append(
-    popupLine('structure-popup-number', structureNumber),
-    popupLine('structure-popup-name', name),
-    popupLine('structure-popup-district', district),
-  );
-  return content;
-}
-
-function popupLine(className: string, text: string): HTMLElement {
-  const line = document.createElement('div');
-  line.className = className;
-  line.textContent = text;
-  return line;
 }

@@ -4,6 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { MAX_STRUCTURES_PER_REQUEST } from '@spanledger/shared';
 import { firstValueFrom } from 'rxjs';
 
+import { NO_FILTERS } from './map-filters';
 import { structureAnswer, structureFeature } from './structure-features.testing';
 import { StructuresClient, bboxParameter } from './structures.client';
 
@@ -34,7 +35,7 @@ describe('StructuresClient', () => {
 
   it('asks for a map view as a bbox rounded outward to 6 decimals', async () => {
     const result = firstValueFrom(
-      client.fetchInBox({ minLon: -98.12345678, minLat: 38.00000049, maxLon: -97.5, maxLat: 38.98765432 }),
+      client.fetchMatching(NO_FILTERS, { minLon: -98.12345678, minLat: 38.00000049, maxLon: -97.5, maxLat: 38.98765432 }),
     );
 
     const request = server.expectOne((r) => r.url === 'api/structures');
@@ -45,12 +46,44 @@ describe('StructuresClient', () => {
     await result;
   });
 
+  it('sends the filters after the bbox, as the server reads them', async () => {
+    const filters = { ...NO_FILTERS, districts: ['North Plains', 'East Valley'], statuses: ['posted' as const], conditionAtMost: 3, search: 'creek' };
+    const result = firstValueFrom(client.fetchMatching(filters, { minLon: -100, minLat: 37.5, maxLon: -96.5, maxLat: 39.5 }));
+
+    const request = server.expectOne((r) => r.url === 'api/structures');
+    expect(request.request.urlWithParams).toBe(
+      `api/structures?bbox=-100,37.5,-96.5,39.5&district=North%20Plains,East%20Valley&status=posted&conditionAtMost=3&search=creek&limit=${MAX_STRUCTURES_PER_REQUEST}`,
+    );
+    request.flush(structureAnswer([]));
+    await result;
+  });
+
+  it('asks for the filtered network, with no bbox, before the map has a view', async () => {
+    const result = firstValueFrom(client.fetchMatching({ ...NO_FILTERS, ratingBands: ['not-rated'] }, null));
+
+    const request = server.expectOne((r) => r.url === 'api/structures');
+    expect(request.request.urlWithParams).toBe(`api/structures?ratingBand=not-rated&ratingBasis=legal&limit=${MAX_STRUCTURES_PER_REQUEST}`);
+    request.flush(structureAnswer([]));
+    await result;
+  });
+
   it('answers empty without asking when the view lies wholly beyond the antimeridian', async () => {
-    const answer = await firstValueFrom(client.fetchInBox({ minLon: 190, minLat: 10, maxLon: 250, maxLat: 40 }));
+    const answer = await firstValueFrom(client.fetchMatching(NO_FILTERS, { minLon: 190, minLat: 10, maxLon: 250, maxLat: 40 }));
 
     server.expectNone(() => true);
     expect(answer.features).toEqual([]);
     expect(answer.truncated).toBe(false);
+    expect(answer.total).toBe(0);
+  });
+
+  it('reads the district names for the filter', async () => {
+    const result = firstValueFrom(client.fetchDistricts());
+
+    const request = server.expectOne('api/districts');
+    expect(request.request.method).toBe('GET');
+    request.flush(['East Valley', 'North Plains']);
+
+    expect(await result).toEqual(['East Valley', 'North Plains']);
   });
 });
 

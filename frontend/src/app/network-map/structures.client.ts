@@ -3,11 +3,13 @@ import { Injectable, inject } from '@angular/core';
 import { BoundingBox, MAX_STRUCTURES_PER_REQUEST, StructureFeatureCollection } from '@spanledger/shared';
 import { Observable, of } from 'rxjs';
 
+import { MapFilters, structureQueryOf } from './map-filters';
+
 const COORDINATE_DECIMALS = 6;
 
-const EMPTY_ANSWER: StructureFeatureCollection = { type: 'FeatureCollection', features: [], truncated: false };
+const EMPTY_ANSWER: StructureFeatureCollection = { type: 'FeatureCollection', features: [], truncated: false, total: 0 };
 
-/** Reads structures for the map from `GET /api/structures`. */
+/** Reads structures for the map from `GET /api/structures`, and the districts it can be filtered by. */
 @Injectable({ providedIn: 'root' })
 export class StructuresClient {
   private readonly http = inject(HttpClient);
@@ -17,10 +19,24 @@ export class StructuresClient {
     return this.fetch(new HttpParams());
   }
 
-  /** The structures inside a map view; a view wholly outside the globe's range answers empty without asking. */
-  fetchInBox(view: BoundingBox): Observable<StructureFeatureCollection> {
-    const bbox = bboxParameter(view);
-    return bbox === null ? of(EMPTY_ANSWER) : this.fetch(new HttpParams().set('bbox', bbox));
+  /**
+   * The structures that match the filters, inside a map view when one is given (the server filters);
+   * a view wholly outside the globe's range answers empty without asking.
+   */
+  fetchMatching(filters: MapFilters, view: BoundingBox | null): Observable<StructureFeatureCollection> {
+    let params = new HttpParams();
+    if (view !== null) {
+      const bbox = bboxParameter(view);
+      if (bbox === null) return of(EMPTY_ANSWER);
+      params = params.set('bbox', bbox);
+    }
+    for (const [name, value] of Object.entries(structureQueryOf(filters))) params = params.set(name, value);
+    return this.fetch(params);
+  }
+
+  /** The network's district names, for the district filter. */
+  fetchDistricts(): Observable<string[]> {
+    return this.http.get<string[]>('api/districts');
   }
 
   private fetch(params: HttpParams): Observable<StructureFeatureCollection> {
