@@ -10,6 +10,12 @@ export const routes: Routes = [
     loadComponent: () => import('./network-map/network-map.page').then((m) => m.NetworkMapPage),
   },
   {
+    path: 'structures/:id',
+    title: 'Structure · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./structures/structure.page').then((m) => m.StructurePage),
+  },
+  {
     path: 'my-role',
     title: 'What my role can do · Spanledger',
     canActivate: [signedInGuard],

@@ -33,4 +33,17 @@ describe('App shell', () => {
     expect(rows[0]).toContain('What my role can do');
     expect(rows[0]).not.toContain('Network register');
   });
+
+  it('offers the units switch to a signed-in user only', async () => {
+    TestBed.configureTestingModule({ imports: [App], providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    const fixture = TestBed.createComponent(App);
+    const loaded = TestBed.inject(SessionStore).load();
+    await fixture.whenStable();
+    expect(fixture.nativeElement.querySelector('[data-testid="units-switch"]')).toBeNull();
+
+    TestBed.inject(HttpTestingController).expectOne('api/session').flush({ user: RATER });
+    await loaded;
+    await fixture.whenStable();
+    expect(fixture.nativeElement.querySelector('[data-testid="units-switch"]')).not.toBeNull();
+  });
 });

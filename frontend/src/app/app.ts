@@ -6,11 +6,12 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { ROLE_NAMES, changeScope } from '@spanledger/shared';
 
 import { SessionStore } from './session/session.store';
+import { UnitsSwitchComponent } from './units/units-switch.component';
 
 /** The shell: the product's top bar, with the signed-in user and the pages their role opens, above the page. */
 @Component({
   selector: 'sl-root',
-  imports: [MatToolbarModule, MatIconModule, MatButtonModule, RouterOutlet, RouterLink, RouterLinkActive],
+  imports: [MatToolbarModule, MatIconModule, MatButtonModule, RouterOutlet, RouterLink, RouterLinkActive, UnitsSwitchComponent],
   template: `
     <mat-toolbar class="top-bar">
       <mat-icon class="product-mark" aria-hidden="true">architecture</mat-icon>
@@ -24,6 +25,7 @@ import { SessionStore } from './session/session.store';
           <a mat-button routerLink="/my-role" routerLinkActive="active">What my role can do</a>
         </nav>
         <span class="spacer"></span>
+        <sl-units-switch />
         <div class="who" data-testid="signed-in-user">
           <span class="name" data-testid="user-name">{{ me.displayName }}</span>
           <span class="role" data-testid="user-role">{{ roleName() }} · {{ districtsText() }}</span>

@@ -1,0 +1,103 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MatPaginatorHarness } from '@angular/material/paginator/testing';
+import type { HistoryEvent } from '@spanledger/shared';
+
+import { UnitsStore } from '../units/units.store';
+import { HISTORY_PAGE_SIZE, HistoryPanelComponent } from './history-panel.component';
+import { historyEvent } from './inventory.testing';
+
+describe('HistoryPanelComponent', () => {
+  let fixture: ComponentFixture<HistoryPanelComponent>;
+  let server: HttpTestingController;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({ imports: [HistoryPanelComponent], providers: [provideHttpClient(), provideHttpClientTesting()] });
+    server = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(HistoryPanelComponent);
+    fixture.componentRef.setInput('structureId', 41);
+    await fixture.whenStable();
+  });
+
+  afterEach(() => {
+    server.verify();
+    localStorage.clear();
+  });
+
+  function historyRequest(): TestRequest {
+    return server.expectOne((request) => request.url === 'api/structures/41/history');
+  }
+
+  async function answer(items: HistoryEvent[], total = items.length, offset = 0): Promise<void> {
+    historyRequest().flush({ items, total, limit: HISTORY_PAGE_SIZE, offset });
+    await fixture.whenStable();
+  }
+
+  function texts(testId: string): string[] {
+    return [...fixture.nativeElement.querySelectorAll(`[data-testid="${testId}"]`)].map((node) => (node as HTMLElement).textContent!.replace(/\s+/g, ' ').trim());
+  }
+
+  it('lists who changed what, each field from before to after in the chosen units', async () => {
+    await answer([
+      historyEvent(),
+      historyEvent({
+        id: '76',
+        action: 'structure.changed',
+        subject: 'Structure',
+        userName: null,
+        changes: [
+          { field: 'status', before: 'open', after: 'posted' },
+          { field: 'notes', before: '', after: 'Posted after the spring inspection.' },
+        ],
+      }),
+    ]);
+
+    const rows = fixture.nativeElement.querySelectorAll('[data-testid="history-row"]');
+    expect(rows).toHaveLength(2);
+    expect(texts('history-what')).toEqual(['Span 1 changed', 'Structure changed']);
+    expect(rows[0].textContent).toContain('Priya Halloran');
+    expect(rows[0].textContent).toContain('2024');
+    expect(rows[1].textContent).toContain('Data load');
+    expect(texts('history-change')).toEqual(['Length: 30.00 m → 30.48 m', 'Status: Open → Posted', 'Notes: (empty) → Posted after the spring inspection.']);
+
+    TestBed.inject(UnitsStore).use('us');
+    await fixture.whenStable();
+    expect(texts('history-change')[0]).toBe('Length: 98.43 ft → 100.00 ft');
+  });
+
+  it('asks for the first page, then the next one the user turns to', async () => {
+    const first = historyRequest();
+    expect(first.request.params.get('limit')).toBe(String(HISTORY_PAGE_SIZE));
+    expect(first.request.params.get('offset')).toBe('0');
+    first.flush({ items: [historyEvent()], total: 45, limit: HISTORY_PAGE_SIZE, offset: 0 });
+    await fixture.whenStable();
+
+    const paginator = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatPaginatorHarness);
+    expect(await paginator.getRangeLabel()).toBe('1 – 20 of 45');
+    await paginator.goToNextPage();
+
+    const second = historyRequest();
+    expect(second.request.params.get('offset')).toBe('20');
+    second.flush({ items: [historyEvent({ id: '12' })], total: 45, limit: HISTORY_PAGE_SIZE, offset: 20 });
+  });
+
+  it('asks again when the page bumps the refresh count after a save', async () => {
+    await answer([]);
+    expect(texts('history-empty')).toEqual(['No changes are recorded for this structure yet.']);
+
+    fixture.componentRef.setInput('refresh', 1);
+    await fixture.whenStable();
+    await answer([historyEvent()]);
+
+    expect(texts('history-what')).toEqual(['Span 1 changed']);
+  });
+
+  it('explains when the history cannot be loaded', async () => {
+    historyRequest().flush({ error: { code: 'internal_error', message: 'Something went wrong on our side.' }, requestId: 'r-2' }, { status: 500, statusText: 'Server Error' });
+    await fixture.whenStable();
+
+    expect(texts('history-error')[0]).toContain('Something went wrong on our side. (request r-2)');
+  });
+});
