@@ -1,6 +1,8 @@
 /**
- * `npm run bench`: every benchmark of the engine (`shared/**\/*.bench.ts`), one after the
- * other in its own process on one core's worth of work. It prints figures; it asserts nothing.
+ * `npm run bench`: every benchmark of the engine (`shared/**\/*.bench.ts`), then those of the
+ * running product (`bench/**\/*.bench.ts`: the API under load, the map's first paint, each with
+ * its own throw-away database, server and browser), one after the other in its own process. It
+ * prints figures; it asserts nothing.
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -16,7 +18,7 @@ function findBenchmarks(folder: string): string[] {
 }
 
 async function main(): Promise<number> {
-  const benchmarks = findBenchmarks(path.join(PROJECT_ROOT, 'shared')).sort();
+  const benchmarks = ['shared', 'bench'].flatMap((folder) => findBenchmarks(path.join(PROJECT_ROOT, folder)).sort());
   let failures = 0;
   for (const file of benchmarks) {
     console.log(`\n# ${path.relative(PROJECT_ROOT, file)}`);

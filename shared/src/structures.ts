@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import type { Feature, FeatureCollection, Point } from 'geojson';
 
-/** Most structures one map request may return; the register of a large owner fits in a few pages. */
-export const MAX_STRUCTURES_PER_REQUEST = 5000;
+/** Most structures one request may return: the map of a large owner's whole network in one answer. */
+export const MAX_STRUCTURES_PER_REQUEST = 20_000;
 export const DEFAULT_STRUCTURES_PER_REQUEST = 1000;
 
 /** A geographic bounding box in WGS 84 degrees, west/south/east/north (GeoJSON RFC 7946 §5 order). */

@@ -29,12 +29,19 @@ describe('findStructures with a bounding box', () => {
   });
   afterAll(() => testDb.drop());
 
+  it('counts every match past the page, also for a page beyond the end', async () => {
+    const beyond = await findStructures(testDb.db, structureListQuery.parse({ offset: '10' }));
+    expect(beyond).toEqual({ rows: [], total: POINTS.length });
+    const firstTwo = await findStructures(testDb.db, structureListQuery.parse({ limit: '2' }));
+    expect([firstTwo.rows.length, firstTwo.total]).toEqual([2, POINTS.length]);
+  });
+
   it('keeps the points inside the box and on its edges, and none outside', async () => {
     const query = structureListQuery.parse({ bbox: '-98.5,37.5,-97.5,38.5' });
     const { rows, total } = await findStructures(testDb.db, query);
     expect(rows.map((row) => row.structure_number)).toEqual(['R-CORNER', 'R-IN']);
     expect(total).toBe(2);
-    expect(rows.find((row) => row.structure_number === 'R-IN')).toMatchObject({ longitude: -98, latitude: 38 });
+    expect(rows[1]).toMatchObject({ longitude: -98, latitude: 38 });
   });
 
   it('can answer the box test (&&) from the spatial index', async () => {

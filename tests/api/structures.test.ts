@@ -104,7 +104,7 @@ describe('GET /api/structures', () => {
     ['bbox', '-98,95,-97,96', /bbox: latitudes must lie between -90 and 90/],
     ['limit', 'ten', /limit: expected a whole number/],
     ['limit', '0', /limit: .*>=\s*1/],
-    ['limit', '5001', /limit: .*<=\s*5000/],
+    ['limit', '20001', /limit: .*<=\s*20000/],
   ])('answers 400 naming %s when it is %p', async (parameter, value, message) => {
     const response = await get('/api/structures', { [parameter]: value });
     expect(response.status).toBe(400);

@@ -22,13 +22,42 @@ function knexQueryRunner(db: Database) {
   };
 }
 
+/** A session's stored expiry lags its last request by at most this (or a tenth of the idle timeout, if less). */
+const MAX_TOUCH_INTERVAL_MS = 60_000;
+/** Past this many sessions the memory of recent touches is swept of those old enough to be written again. */
+const MAX_REMEMBERED_TOUCHES = 10_000;
+
 /**
  * Sessions in PostgreSQL (`user_sessions`). The cookie is HttpOnly and SameSite=Lax; every
- * response pushes its expiry forward, so it lapses after the idle timeout.
+ * response pushes its expiry forward, so it lapses after the idle timeout (the stored expiry is
+ * written at most once a minute, so a session may lapse up to that much sooner).
  */
 export function sessions(config: SessionConfig, db: Database, logger: Logger): RequestHandler {
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  const touchIntervalMs = Math.min(MAX_TOUCH_INTERVAL_MS, config.idleTimeoutMs / 10);
+
+  /** Writes a session's new expiry at most once per interval: one write a minute per person, not one per request. */
+  class PgStoreWithSparingTouch extends PgStore {
+    private readonly lastTouchedAt = new Map<string, number>();
+
+    override touch(sid: string, sessionData: session.SessionData, done?: (error?: unknown) => void): void {
+      const now = Date.now();
+      const last = this.lastTouchedAt.get(sid);
+      if (last !== undefined && now - last < touchIntervalMs) {
+        done?.();
+        return;
+      }
+      if (this.lastTouchedAt.size > MAX_REMEMBERED_TOUCHES) this.forgetTouchesBefore(now - touchIntervalMs);
+      this.lastTouchedAt.set(sid, now);
+      super.touch(sid, sessionData, done);
+    }
+
+    private forgetTouchesBefore(time: number): void {
+      for (const [sid, touchedAt] of this.lastTouchedAt) if (touchedAt < time) this.lastTouchedAt.delete(sid);
+    }
+  }
+
+  const store = new PgStoreWithSparingTouch({
     pgPromise: knexQueryRunner(db),
     tableName: 'user_sessions',
     createTableIfMissing: false,

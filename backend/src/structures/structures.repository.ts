@@ -141,16 +141,59 @@ function structuresWithStamps(db: Db): Knex.QueryBuilder {
     .leftJoin({ updated_by: 'users' }, 'updated_by.id', 's.updated_by');
 }
 
-/** One page of the structures that match, in the asked order (ties by structure number), and how many match in all. */
-export async function findStructures(db: Db, filter: StructureListQuery): Promise<{ rows: StructureRow[]; total: number }> {
+/** What a list of structures shows of each (the map's markers, its side list and card). */
+export interface StructureListRow {
+  id: number;
+  structure_number: string;
+  name: string;
+  route_carried: string;
+  feature_crossed: string;
+  district: string;
+  longitude: number;
+  latitude: number;
+  year_built: number | null;
+  adt: number | null;
+  adtt: number | null;
+  status: StructureStatus;
+  lowest_condition: number | null;
+  rating_of_record_legal_rf: number | null;
+  rating_of_record_inventory_rf: number | null;
+}
+
+/**
+ * One page of the structures that match, in the asked order (ties by structure number), and how
+ * many match in all — counted by a window over the same rows, so one query answers both. Only
+ * the columns a list shows: the map asks for thousands at a time.
+ */
+export async function findStructures(db: Db, filter: StructureListQuery): Promise<{ rows: StructureListRow[]; total: number }> {
+  const st = postgis(db);
   const { key, descending } = filter.sort;
   const sortExpression = key === 'ratingFactor' ? ratingColumn(filter.ratingBasis) : SORT_EXPRESSIONS[key];
-  const page = selectStructureColumns(db, applyFilters(db, structuresWithStamps(db), filter))
+  const rows: (StructureListRow & { matching: string })[] = await applyFilters(db, db({ s: 'structures' }), filter)
+    .select(
+      's.id',
+      's.structure_number',
+      's.name',
+      's.route_carried',
+      's.feature_crossed',
+      's.district',
+      st.x('s.location').as('longitude'),
+      st.y('s.location').as('latitude'),
+      's.year_built',
+      's.adt',
+      's.adtt',
+      's.status',
+      db.raw(`${LOWEST_CONDITION} as lowest_condition`),
+      's.rating_of_record_legal_rf',
+      's.rating_of_record_inventory_rf',
+      db.raw('count(*) over () as matching'),
+    )
     .orderByRaw(`${sortExpression} ${descending ? 'desc' : 'asc'} nulls last, s.structure_number`)
     .limit(filter.limit)
     .offset(filter.offset);
-  const count = applyFilters(db, db({ s: 'structures' }), filter).count<{ total: string }[]>({ total: '*' });
-  const [rows, [counted]] = await Promise.all([page as Promise<StructureRow[]>, count]);
+  if (rows.length > 0) return { rows, total: Number(rows[0]!.matching) };
+  // A page past the end has no rows to carry the count.
+  const [counted] = await applyFilters(db, db({ s: 'structures' }), filter).count<{ total: string }[]>({ total: '*' });
   return { rows, total: Number(counted?.total ?? 0) };
 }
 

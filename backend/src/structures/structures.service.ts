@@ -21,6 +21,7 @@ import {
   structureNumberTaken,
   updateStructure,
   type StructureColumns,
+  type StructureListRow,
   type StructureRow,
 } from './structures.repository';
 
@@ -31,7 +32,7 @@ interface Writer extends Reader {
   readonly user: SignedInUser;
 }
 
-function toFeature(row: StructureRow): StructureFeature {
+function toFeature(row: StructureListRow): StructureFeature {
   return {
     type: 'Feature',
     id: row.id,

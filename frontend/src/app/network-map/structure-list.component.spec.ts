@@ -2,7 +2,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { StructureSummary } from '@spanledger/shared';
 
-import { StructureListComponent } from './structure-list.component';
+import { MAX_LISTED_STRUCTURES, StructureListComponent } from './structure-list.component';
 import { structureFeature } from './structure-features.testing';
 import { StructureListHarness } from './structure-list.testing';
 
@@ -98,11 +98,22 @@ describe('StructureListComponent', () => {
   it('notes when the server cut the list short, and only then', async () => {
     show([summary(1, 'A-1'), summary(2, 'A-2')], { truncated: true, total: 9 });
     await fixture.whenStable();
-    expect(text('truncated-note')).toBe('Only the first 2 are shown. Zoom in to see the rest.');
+    expect(text('truncated-note')).toBe('Only the first 2 are listed. Zoom in or filter to see the rest.');
 
     show([summary(1, 'A-1'), summary(2, 'A-2')], { truncated: false });
     await fixture.whenStable();
     expect(text('truncated-note')).toBeNull();
+  });
+
+  it('lists at most a few hundred structures, the first by number, and says the rest are on the map', async () => {
+    const many = Array.from({ length: MAX_LISTED_STRUCTURES + 50 }, (_, index) => summary(index + 1, `A-${MAX_LISTED_STRUCTURES + 50 - index}`));
+    show(many, { total: many.length });
+    await fixture.whenStable();
+    const items = fixture.nativeElement.querySelectorAll('[data-testid="structure-list-item"]') as NodeListOf<HTMLElement>;
+    expect(items).toHaveLength(MAX_LISTED_STRUCTURES);
+    expect(items[0]!.dataset['structureNumber']).toBe('A-1');
+    expect(text('truncated-note')).toBe(`Only the first ${MAX_LISTED_STRUCTURES} are listed. Zoom in or filter to see the rest.`);
+    expect(text('structure-count')).toBe(`${many.length} structures in view`);
   });
 
   it('says so when nothing is in view, and whether filters are why', async () => {

@@ -13,6 +13,12 @@ interface StructureRow {
   readonly status: StructureStatus;
 }
 
+/**
+ * Rows the list draws at most. A person reads a list of a few hundred; past that they zoom or
+ * filter, and drawing thousands of rows would hold up the map's first paint.
+ */
+export const MAX_LISTED_STRUCTURES = 300;
+
 /** Orders structure numbers as people read them: "B-9" before "B-10". */
 const structureNumberOrder = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
 
@@ -41,9 +47,11 @@ export class StructureListComponent {
 
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
 
+  private readonly sortedStructures = computed(() => [...this.structures()].sort((a, b) => structureNumberOrder.compare(a.structureNumber, b.structureNumber)));
+
   protected readonly rows = computed<readonly StructureRow[]>(() =>
-    [...this.structures()]
-      .sort((a, b) => structureNumberOrder.compare(a.structureNumber, b.structureNumber))
+    this.sortedStructures()
+      .slice(0, MAX_LISTED_STRUCTURES)
       .map((structure) => ({
         id: structure.id,
         structureNumber: structure.structureNumber,
@@ -66,9 +74,13 @@ export class StructureListComponent {
     this.filtered() ? 'No structures in this part of the map match the filters.' : 'No structures in this part of the map.',
   );
 
-  protected readonly truncatedNote = computed(() =>
-    this.truncated() ? `Only the first ${this.rows().length.toLocaleString('en')} are shown. Zoom in to see the rest.` : null,
-  );
+  protected readonly truncatedNote = computed(() => {
+    const listed = this.rows().length;
+    if (this.truncated() || listed < this.sortedStructures().length) {
+      return `Only the first ${listed.toLocaleString('en')} are listed. Zoom in or filter to see the rest.`;
+    }
+    return null;
+  });
 
   constructor() {
     // A structure picked on the map may sit far down the list: bring it into sight.
