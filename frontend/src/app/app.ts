@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { IsActiveMatchOptions, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { ROLE_NAMES, changeScope } from '@spanledger/shared';
 
 import { SessionStore } from './session/session.store';
@@ -18,7 +18,7 @@ import { UnitsSwitchComponent } from './units/units-switch.component';
       <span class="product-name">Spanledger</span>
       @if (user(); as me) {
         <nav class="pages" aria-label="Pages">
-          <a mat-button routerLink="/" routerLinkActive="active" [routerLinkActiveOptions]="{ exact: true }">Network map</a>
+          <a mat-button routerLink="/" routerLinkActive="active" [routerLinkActiveOptions]="mapLinkActive">Network map</a>
           @if (session.can('exportRegister')) {
             <a mat-button routerLink="/register" routerLinkActive="active" data-testid="nav-register">Network register</a>
           }
@@ -44,6 +44,8 @@ export class App {
   protected readonly session = inject(SessionStore);
   private readonly router = inject(Router);
   protected readonly user = this.session.user;
+  /** The map's filters live in its query string; the link is active whatever they are. */
+  protected readonly mapLinkActive: IsActiveMatchOptions = { paths: 'exact', queryParams: 'ignored', matrixParams: 'ignored', fragment: 'ignored' };
   protected readonly roleName = computed(() => {
     const user = this.user();
     return user ? `${ROLE_NAMES[user.role]}${user.admin ? ' (administrator)' : ''}` : '';
