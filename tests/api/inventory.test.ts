@@ -201,6 +201,18 @@ describe('inventory API', () => {
       expect(fieldsOf(againstStored.body)).toEqual(['adtt']);
     });
 
+    it('leaves open, posted or closed to managers, who decide postings', async () => {
+      const structure = await structureIn('Central District');
+      const target = structure.status === 'posted' ? 'open' : 'posted';
+      const byRater = await call('raterCentral', `/api/structures/${structure.id}`, { method: 'PATCH', json: { version: structure.version, status: target } });
+      expect(byRater.status).toBe(403);
+      expect(byRater.body.error!.message).toMatch(/asset manager/);
+      expect((await call('raterCentral', `/api/structures/${structure.id}`, { method: 'PATCH', json: { version: structure.version, status: structure.status } })).status).toBe(200);
+      const byManager = await call<StructureDetail>('managerNorthCentral', `/api/structures/${structure.id}`, { method: 'PATCH', json: { version: structure.version, status: target } });
+      expect(byManager.status).toBe(200);
+      expect(byManager.body.status).toBe(target);
+    });
+
     it('refuses a structure number another structure has', async () => {
       const [a, b] = await testDb.db('structures').where({ district: 'South District' }).orderBy('structure_number').limit(2).select('id', 'structure_number', 'version');
       const { status, body } = await call('raterEastSouth', `/api/structures/${a.id}`, { method: 'PATCH', json: { version: a.version, structureNumber: b.structure_number } });

@@ -198,6 +198,7 @@ export async function changeStructure({ db, user }: Writer, id: number, { versio
     const changes: FieldChanges = changedFields(before, withLocation);
     if (changes.fields.length === 0) return toDetail(trx, row);
 
+    if (changes.fields.includes('status')) assertMayDecideStatus(user, row.district);
     const crossFieldProblem = checkCombined({ ...before, ...withLocation });
     if (crossFieldProblem) throw crossFieldProblem;
 
@@ -223,9 +224,17 @@ function checkCombined(values: Record<keyof StructureChangeFields, unknown>): Ap
   });
 }
 
-/** Adds a structure to the register, in one of the user's districts. */
+/** Whether a structure is posted or closed is a posting decision (permission matrix: managers). */
+function assertMayDecideStatus(user: SignedInUser, district: string): void {
+  if (!canInDistrict(user, 'decidePostings', district)) {
+    throw AppError.forbidden('Only an asset manager of the district may change whether a structure is open, posted or closed');
+  }
+}
+
+/** Adds a structure to the register, in one of the user's districts; only a manager adds one already posted or closed. */
 export async function createStructure({ db, user }: Writer, structure: NewStructure): Promise<StructureDetail> {
   assertMayEditIn(user, structure.district);
+  if (structure.status !== 'open') assertMayDecideStatus(user, structure.district);
   return withTransaction(db, async (trx) => {
     await assertNumberFree(trx, structure.structureNumber);
     const id = await insertStructure(trx, toColumns(structure) as Required<StructureColumns>, user.id);

@@ -122,10 +122,21 @@ export class StructureFormComponent {
     return [...new Set([current, ...allowed])].sort((a, b) => a.localeCompare(b));
   });
 
+  /** The status says whether a structure is posted or closed: a posting decision, which only managers make. */
+  protected readonly mayDecideStatus = computed(() => {
+    const user = this.session.user();
+    return user !== null && canInDistrict(user, 'decidePostings', this.structure().district);
+  });
+
   constructor() {
     effect(() => {
       const structure = this.structure();
       untracked(() => this.startFrom(structure));
+    });
+    effect(() => {
+      const status = this.form.controls.status;
+      if (this.mayDecideStatus()) status.enable();
+      else status.disable();
     });
   }
 

@@ -214,6 +214,13 @@ describe('StructurePage', () => {
     expect(snackBarOpen).toHaveBeenCalledWith('Structure NP-0041 saved.', 'Dismiss', expect.anything());
   });
 
+  it("leaves a structure's status to managers: a rater sees it but cannot change it", async () => {
+    await openPage(RATER);
+    await openStructureForm();
+    expect(element('status-hint')?.textContent).toContain('decided by asset managers');
+    expect(element('field-status')?.getAttribute('aria-disabled')).toBe('true');
+  });
+
   it('checks the form with the server rules before sending, naming each bad field', async () => {
     await openPage(RATER);
     await openStructureForm();
