@@ -125,7 +125,7 @@ export class StructureFormComponent {
   /** The status says whether a structure is posted or closed: a posting decision, which only managers make. */
   protected readonly mayDecideStatus = computed(() => {
     const user = this.session.user();
-    return user !== null && canInDistrict(user, 'decidePostings', this.structure().district);
+    return user != null && canInDistrict(user, 'decidePostings', this.structure().district);
   });
 
   constructor() {
