@@ -2,6 +2,7 @@
 export * from './structures';
 export * from './inventory';
 export * from './girder-record';
+export * from './inspections';
 export * from './client-config';
 export * from './access';
 export * from './units';
