@@ -21,6 +21,8 @@ import { structuresRouter } from './structures/structures.router';
 import { spansRouter } from './spans/spans.router';
 import { girdersRouter } from './girders/girders.router';
 import { libraryRouter } from './library/library.router';
+import { inspectionsRouter } from './inspections/inspections.router';
+import { alertsRouter } from './alerts/alerts.router';
 
 export interface AppDependencies {
   readonly config: AppConfig;
@@ -59,6 +61,8 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   api.use(spansRouter(db));
   api.use(girdersRouter(db));
   api.use(libraryRouter(db));
+  api.use(inspectionsRouter(db));
+  api.use(alertsRouter(db));
   api.use(networkRegisterRouter(db));
   api.use(calcRouter());
   api.use(apiNotFound);

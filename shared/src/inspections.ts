@@ -261,3 +261,41 @@ export interface PhotoSummary {
   readonly originalName: string;
   readonly uploaded: UserStamp;
 }
+
+/** The parts of a finding that say what damage it is and where. */
+export type FindingDamage = Pick<FindingDetail, 'kind' | 'strands' | 'lossFraction' | 'brokenWires' | 'spall' | 'deckLossMm' | 'fromM' | 'toM'> & { readonly id?: number | string };
+
+/**
+ * The calculation file's damage entry for a finding (calc-file.md, `damage`), or null for kinds
+ * with no modelled effect on flexural capacity (cracks, other). Broken wires of a seven-wire
+ * strand take that share of its area (a section loss of wires ÷ 7); a bottom-flange spall is a
+ * concrete loss of its depth and width.
+ */
+export function damageEntryOfFinding(finding: FindingDamage): DamageEntry | null {
+  const where = { fromM: finding.fromM, toM: finding.toM, ...(finding.id !== undefined ? { findingId: finding.id } : {}) };
+  const strands = finding.strands ? { rowId: finding.strands.rowId, ...(finding.strands.strands ? { strands: [...finding.strands.strands] } : { count: finding.strands.count! }) } : null;
+  switch (finding.kind) {
+    case 'lost-strands':
+      return strands && { kind: 'lost-strands', ...strands, ...where };
+    case 'exposed-strands':
+      return strands && { kind: 'exposed-strands', ...strands, ...where };
+    case 'strand-section-loss':
+      return strands && finding.lossFraction !== null ? { kind: 'strand-area-loss', ...strands, lossFraction: finding.lossFraction, ...where } : null;
+    case 'broken-wires':
+      return strands && finding.brokenWires !== null ? { kind: 'strand-area-loss', ...strands, lossFraction: finding.brokenWires / WIRES_PER_STRAND, ...where } : null;
+    case 'spall':
+      return finding.spall ? { kind: 'concrete-loss', bottomFlange: { depthMm: finding.spall.depthMm, widthMm: finding.spall.widthMm }, ...where } : null;
+    case 'deck-loss':
+      return finding.deckLossMm !== null ? { kind: 'deck-loss', thicknessMm: finding.deckLossMm, ...where } : null;
+    case 'crack':
+    case 'other':
+      return null;
+  }
+}
+
+/** Newly lost strands or broken wires, or anything the inspector marks critical, alert the district's raters at once. */
+export function isCriticalFinding(finding: Pick<FindingDetail, 'kind' | 'severity' | 'disposition'>): boolean {
+  if (finding.severity === 'critical') return true;
+  const strandBreak = finding.kind === 'lost-strands' || finding.kind === 'broken-wires';
+  return strandBreak && (finding.disposition === 'new' || finding.disposition === 'grown');
+}

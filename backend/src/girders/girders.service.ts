@@ -1,4 +1,4 @@
-import { LIBRARY_VEHICLE_IDS, parseRateFile, type GirderTypeChange, type NewGirderType, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
+import { LIBRARY_VEHICLE_IDS, parseRateFile, type CalcFileIssue, type DamageEntry, type GirderTypeChange, type NewGirderType, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database, type Transaction } from '../db/database';
@@ -151,19 +151,38 @@ async function typeSectionFor(db: Database | Transaction, record: GirderRecord):
  * record and its span and lets the engine's own schema judge it, naming each problem by its
  * place in the record. A girder that passes can always be rated.
  */
-function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number): void {
+/** A rating calculation file of the girder as stored in its span, with the given damage; traffic, condition and vehicle only complete it. */
+function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number, damage: readonly DamageEntry[] = []) {
   const { columns, strandRows } = girderColumnsOf(record);
   const stored: StoredGirder = { girder: { ...columns, girder_number: row.girder_number }, typeSection, strandRows };
-  const file = {
+  return {
     units: 'si',
     ...girderCalcFileParts(stored, span, skewDeg),
-    // Traffic, condition and vehicle only complete the file; they do not bear on the girder.
+    damage,
     condition: { superstructure: 9 },
     traffic: { adtt: 0 },
     vehicles: [LIBRARY_VEHICLE_IDS[0]],
   };
-  const parsed = parseRateFile(file);
+}
+
+function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number): void {
+  const parsed = parseRateFile(rateFileOf(record, typeSection, span, row, skewDeg));
   if (!parsed.ok) throw invalid(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
+}
+
+/**
+ * What the engine finds wrong with damage entries on a stored girder — strands it does not have,
+ * a spall outside its concrete, a place beyond its span — as issues at `damage[i]…` paths, so a
+ * finding is refused on the same rules a rating will apply. Empty when all is well.
+ */
+export async function damageIssuesOnGirder(db: Database | Transaction, girderId: number, damage: readonly DamageEntry[]): Promise<readonly CalcFileIssue[]> {
+  const row = await findGirderById(db, girderId);
+  if (!row) throw girderNotFound(girderId);
+  const record = toGirderRecord(row, await findStrandRows(db, girderId));
+  const span = (await findSpanById(db, row.span_id))!;
+  const structure = (await findStructureById(db, row.structure_id))!;
+  const parsed = parseRateFile(rateFileOf(record, row.type_section, span, row, structure.skew_deg, damage));
+  return parsed.ok ? [] : parsed.issues.filter((issue) => issue.path.startsWith('damage'));
 }
 
 /**

@@ -6,6 +6,9 @@ export type ErrorCode =
   | 'not_found'
   | 'version_conflict'
   | 'already_exists'
+  | 'read_only'
+  | 'storage_unavailable'
+  | 'unsupported_media_type'
   | 'sign_in_required'
   | 'forbidden'
   | 'xsrf_check_failed'
@@ -53,6 +56,11 @@ export class AppError extends Error {
 
   static alreadyExists(message: string, field: string): AppError {
     return new AppError({ code: 'already_exists', status: 409, message, details: { fields: [{ field, message }] } });
+  }
+
+  /** The record is past the state in which it may change (a submitted inspection, an approved rating). */
+  static readOnly(message: string): AppError {
+    return new AppError({ code: 'read_only', status: 409, message });
   }
 
   static signInRequired(): AppError {

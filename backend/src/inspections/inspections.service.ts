@@ -1,0 +1,445 @@
+import {
+  canInDistrict,
+  damageEntryOfFinding,
+  FINDING_KIND_NAMES,
+  isCriticalFinding,
+  type FindingChange,
+  type FindingDetail,
+  type InspectionChange,
+  type InspectionDetail,
+  type InspectionSummary,
+  type NewFinding,
+  type NewInspection,
+  type SignedInUser,
+} from '../../../shared/src';
+import { findingAlreadyAlerted, findUsersOfRoleInDistrict, insertAlerts } from '../alerts/alerts.repository';
+import { recordAuditEvent } from '../audit/audit-events';
+import { changedFields } from '../audit/changed-fields';
+import { withTransaction, type Database, type Transaction } from '../db/database';
+import { damageIssuesOnGirder } from '../girders/girders.service';
+import { findGirderById } from '../girders/girders.repository';
+import { AppError } from '../http/app-error';
+import { findStructureById, updateStructure } from '../structures/structures.repository';
+import { inspectionOpenForChange } from './inspection-access';
+import {
+  deleteFinding,
+  deleteInspection,
+  findFindingById,
+  findFindingsOfGirder,
+  findFindingsOfInspection,
+  findInspectionById,
+  findInspectionInProgress,
+  findInspectionsOfStructure,
+  findOpenFindingsOfSpan,
+  findOpenFindingsOfStructure,
+  insertFinding,
+  insertInspection,
+  supersedeCarriedFindings,
+  updateFinding,
+  updateInspection,
+  type FindingColumns,
+  type FindingRow,
+  type InspectionRow,
+} from './inspections.repository';
+
+interface Reader {
+  readonly db: Database;
+}
+interface Writer extends Reader {
+  readonly user: SignedInUser;
+}
+
+function registerStateOf(row: FindingRow): FindingDetail['registerState'] {
+  if (row.inspection_submitted_at === null) return 'draft';
+  if (row.superseded_by_id !== null) return 'superseded';
+  return row.disposition === 'repaired' ? 'repaired' : 'open';
+}
+
+function toFindingDetail(row: FindingRow): FindingDetail {
+  const damage = {
+    id: row.id,
+    kind: row.kind,
+    strands: row.strands,
+    lossFraction: row.loss_fraction,
+    brokenWires: row.broken_wires,
+    spall: row.spall,
+    deckLossMm: row.deck_loss_mm,
+    fromM: row.from_m,
+    toM: row.to_m,
+  };
+  return {
+    ...damage,
+    inspectionId: row.inspection_id,
+    girderId: row.girder_id,
+    girderNumber: row.girder_number,
+    spanId: row.span_id,
+    spanIndex: row.span_index,
+    crackWidthMm: row.crack_width_mm,
+    severity: row.severity,
+    notes: row.notes,
+    disposition: row.disposition,
+    carriedFromId: row.carried_from_id,
+    registerState: registerStateOf(row),
+    critical: row.critical,
+    damageEntry: row.disposition === 'repaired' ? null : damageEntryOfFinding(damage),
+    photoIds: [],
+    version: row.version,
+  };
+}
+
+function toSummary(row: InspectionRow, findingCount: number, criticalCount: number): InspectionSummary {
+  return {
+    id: row.id,
+    structureId: row.structure_id,
+    inspectedOn: row.inspected_on,
+    kind: row.kind,
+    state: row.state,
+    inspectorName: row.inspector_name,
+    findingCount,
+    criticalCount,
+  };
+}
+
+async function toInspectionDetail(db: Database | Transaction, row: InspectionRow): Promise<InspectionDetail> {
+  const findings = (await findFindingsOfInspection(db, row.id)).map(toFindingDetail);
+  return {
+    ...toSummary(row, findings.length, findings.filter((f) => f.critical).length),
+    structureNumber: row.structure_number,
+    district: row.district,
+    inspectorId: row.inspector_id,
+    conditions: { deck: row.deck_condition, superstructure: row.superstructure_condition, substructure: row.substructure_condition },
+    notes: row.notes,
+    returnComment: row.return_comment,
+    submittedAt: row.submitted_at?.toISOString() ?? null,
+    reviewed: row.reviewed_at ? { at: row.reviewed_at.toISOString(), by: row.reviewed_by_name } : null,
+    findings,
+    photoIds: [],
+    version: row.version,
+  };
+}
+
+const inspectionNotFound = (id: number) => AppError.notFound(`There is no inspection with id ${id}`);
+
+function invalid(fields: readonly { field: string; message: string }[]): AppError {
+  return new AppError({
+    code: 'validation_failed',
+    status: 400,
+    message: `Invalid body field${fields.length > 1 ? 's' : ''}: ${fields.map((f) => `${f.field}: ${f.message}`).join('; ')}`,
+    details: { fields },
+  });
+}
+
+export async function listInspectionsOfStructure({ db }: Reader, structureId: number): Promise<InspectionSummary[]> {
+  if (!(await findStructureById(db, structureId))) throw AppError.notFound(`There is no structure with id ${structureId}`);
+  return (await findInspectionsOfStructure(db, structureId)).map((row) => toSummary(row, Number(row.finding_count), Number(row.critical_count)));
+}
+
+export async function getInspection({ db }: Reader, id: number): Promise<InspectionDetail> {
+  const row = await findInspectionById(db, id);
+  if (!row) throw inspectionNotFound(id);
+  return toInspectionDetail(db, row);
+}
+
+/**
+ * Starts an inspection of a structure as a draft of the signed-in inspector, with every finding
+ * open on the register carried forward to be confirmed, grown or marked repaired. One inspection
+ * of a structure is written at a time, so a finding is carried forward by one of them.
+ */
+export async function startInspection({ db, user }: Writer, structureId: number, input: NewInspection): Promise<InspectionDetail> {
+  return withTransaction(db, async (trx) => {
+    const structure = await findStructureById(trx, structureId, { forUpdate: true });
+    if (!structure) throw AppError.notFound(`There is no structure with id ${structureId}`);
+    if (!canInDistrict(user, 'editOwnInspections', structure.district)) throw AppError.forbidden(`You may not record inspections in ${structure.district}`);
+    const inProgress = await findInspectionInProgress(trx, structureId);
+    if (inProgress) {
+      throw new AppError({
+        code: 'already_exists',
+        status: 409,
+        message: `An inspection of ${structure.structure_number} is already being written (${inProgress.inspected_on}, ${inProgress.inspector_name}); finish or delete it first`,
+        details: { inspectionId: inProgress.id },
+      });
+    }
+    const id = await insertInspection(
+      trx,
+      structureId,
+      {
+        inspected_on: input.inspectedOn,
+        kind: input.kind,
+        deck_condition: input.deckCondition,
+        superstructure_condition: input.superstructureCondition,
+        substructure_condition: input.substructureCondition,
+        notes: input.notes,
+      },
+      user.id,
+    );
+    for (const open of await findOpenFindingsOfStructure(trx, structureId)) {
+      await insertFinding(trx, { ...copyColumns(open), disposition: 'to-review', critical: false, inspection_id: id, girder_id: open.girder_id, carried_from_id: open.id }, user.id);
+    }
+    await recordAuditEvent({ db: trx, user, action: 'inspection.started', entity: { type: 'inspection', id }, after: input });
+    return toInspectionDetail(trx, (await findInspectionById(trx, id))!);
+  });
+}
+
+function copyColumns(row: FindingRow): Omit<FindingColumns, 'disposition' | 'critical'> {
+  const { kind, strands, loss_fraction, broken_wires, spall, deck_loss_mm, crack_width_mm, from_m, to_m, severity, notes } = row;
+  return { kind, strands, loss_fraction, broken_wires, spall, deck_loss_mm, crack_width_mm, from_m, to_m, severity, notes };
+}
+
+const INSPECTION_COLUMN_OF = {
+  inspectedOn: 'inspected_on',
+  kind: 'kind',
+  deckCondition: 'deck_condition',
+  superstructureCondition: 'superstructure_condition',
+  substructureCondition: 'substructure_condition',
+  notes: 'notes',
+} as const;
+
+function inspectionFields(row: InspectionRow): Record<keyof typeof INSPECTION_COLUMN_OF, unknown> {
+  return {
+    inspectedOn: row.inspected_on,
+    kind: row.kind,
+    deckCondition: row.deck_condition,
+    superstructureCondition: row.superstructure_condition,
+    substructureCondition: row.substructure_condition,
+    notes: row.notes,
+  };
+}
+
+export async function changeInspection({ db, user }: Writer, id: number, { version, ...fields }: InspectionChange): Promise<InspectionDetail> {
+  return withTransaction(db, async (trx) => {
+    const row = await inspectionOpenForChange(trx, user, id);
+    if (row.version !== version) throw AppError.versionConflict(`The inspection of ${row.inspected_on}`, await toInspectionDetail(trx, row));
+    const changes = changedFields(inspectionFields(row), fields);
+    if (changes.fields.length === 0) return toInspectionDetail(trx, row);
+    const columns = Object.fromEntries(changes.fields.map((field) => [INSPECTION_COLUMN_OF[field as keyof typeof INSPECTION_COLUMN_OF], changes.after[field]]));
+    await updateInspection(trx, id, version, columns, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'inspection.changed', entity: { type: 'inspection', id }, before: changes.before, after: changes.after });
+    return toInspectionDetail(trx, (await findInspectionById(trx, id))!);
+  });
+}
+
+/** Deletes a draft that was never submitted, with its findings; what was once submitted stays on the record. */
+export async function removeInspection({ db, user }: Writer, id: number): Promise<void> {
+  await withTransaction(db, async (trx) => {
+    const row = await inspectionOpenForChange(trx, user, id);
+    if (row.submitted_at !== null) throw AppError.readOnly('This inspection was submitted once; it stays on the record — change it and submit it again instead');
+    await deleteInspection(trx, id);
+    await recordAuditEvent({ db: trx, user, action: 'inspection.deleted', entity: { type: 'inspection', id }, before: inspectionFields(row) });
+  });
+}
+
+/** Where a problem the engine finds in a finding's damage entry lies in the finding. */
+function findingPathOf(damagePath: string, kind: FindingDetail['kind']): string {
+  const rest = damagePath.replace(/^damage\[0\]\.?/, '').replace(/\[(\d+)\]/g, '.$1');
+  if (rest === '') return 'kind';
+  if (rest === 'rowId' || rest === 'count' || rest.startsWith('strands')) return `strands.${rest}`;
+  if (rest === 'lossFraction') return kind === 'broken-wires' ? 'brokenWires' : 'lossFraction';
+  if (rest.startsWith('bottomFlange') || rest.startsWith('polygonMm')) return 'spall';
+  if (rest === 'thicknessMm') return 'deckLossMm';
+  return rest;
+}
+
+type FindingInput = Omit<NewFinding, 'girderId'>;
+
+/** Refuses a finding the girder cannot have: strands it lacks, a place beyond its span, a spall outside its concrete. */
+async function assertFindingFitsGirder(trx: Transaction, girderId: number, spanLengthM: number, finding: FindingInput): Promise<void> {
+  const fields: { field: string; message: string }[] = [];
+  for (const field of ['fromM', 'toM'] as const) {
+    if (finding[field] > spanLengthM) fields.push({ field, message: `lies beyond the span (${spanLengthM} m)` });
+  }
+  const entry = damageEntryOfFinding(finding);
+  if (entry) {
+    for (const issue of await damageIssuesOnGirder(trx, girderId, [entry])) {
+      const field = findingPathOf(issue.path, finding.kind);
+      if (!fields.some((f) => f.field === field)) fields.push({ field, message: issue.message });
+    }
+  }
+  if (fields.length > 0) throw invalid(fields);
+}
+
+function findingColumnsOf(finding: FindingInput, disposition: FindingDetail['disposition']): FindingColumns {
+  return {
+    kind: finding.kind,
+    strands: finding.strands,
+    loss_fraction: finding.lossFraction,
+    broken_wires: finding.brokenWires,
+    spall: finding.spall,
+    deck_loss_mm: finding.deckLossMm,
+    crack_width_mm: finding.crackWidthMm,
+    from_m: finding.fromM,
+    to_m: finding.toM,
+    severity: finding.severity,
+    notes: finding.notes,
+    disposition,
+    critical: isCriticalFinding({ kind: finding.kind, severity: finding.severity, disposition }),
+  };
+}
+
+/** Records a new finding against a girder of the inspected structure. */
+export async function addFinding({ db, user }: Writer, inspectionId: number, { girderId, ...finding }: NewFinding): Promise<FindingDetail> {
+  return withTransaction(db, async (trx) => {
+    const inspection = await inspectionOpenForChange(trx, user, inspectionId);
+    const girder = await findGirderById(trx, girderId);
+    if (!girder || girder.structure_id !== inspection.structure_id) {
+      throw invalid([{ field: 'girderId', message: `structure ${inspection.structure_number} has no girder with id ${girderId}` }]);
+    }
+    const span = await trx('spans').where({ id: girder.span_id }).first('length_m');
+    await assertFindingFitsGirder(trx, girderId, span.length_m, finding);
+    const id = await insertFinding(trx, { ...findingColumnsOf(finding, 'new'), inspection_id: inspectionId, girder_id: girderId, carried_from_id: null }, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'finding.recorded', entity: { type: 'finding', id }, after: { girderId, ...finding } });
+    return toFindingDetail((await findFindingById(trx, id))!);
+  });
+}
+
+function findingFields(row: FindingRow): Record<string, unknown> {
+  const detail = toFindingDetail(row);
+  const { kind, strands, lossFraction, brokenWires, spall, deckLossMm, crackWidthMm, fromM, toM, severity, notes, disposition } = detail;
+  return { kind, strands, lossFraction, brokenWires, spall, deckLossMm, crackWidthMm, fromM, toM, severity, notes, disposition };
+}
+
+/**
+ * Changes a finding of an inspection being written. A finding recorded now stays `new`; one
+ * carried forward is confirmed, grown (with its new extent) or marked repaired, and keeps its kind.
+ */
+export async function changeFinding({ db, user }: Writer, findingId: number, { version, disposition, ...finding }: FindingChange): Promise<FindingDetail> {
+  return withTransaction(db, async (trx) => {
+    const existing = await findFindingById(trx, findingId);
+    if (!existing) throw AppError.notFound(`There is no finding with id ${findingId}`);
+    await inspectionOpenForChange(trx, user, existing.inspection_id);
+    const row = (await findFindingById(trx, findingId, { forUpdate: true }))!;
+    if (row.version !== version) throw AppError.versionConflict(`The finding on girder ${row.girder_number} of span ${row.span_index}`, toFindingDetail(row));
+    const nextDisposition = disposition ?? row.disposition;
+    const carried = row.carried_from_id !== null;
+    if (!carried && nextDisposition !== 'new') throw invalid([{ field: 'disposition', message: 'a finding recorded in this inspection is new; confirm, grow or repair findings carried forward' }]);
+    if (carried && nextDisposition === 'new') throw invalid([{ field: 'disposition', message: 'a finding carried forward is confirmed, grown or repaired, not new' }]);
+    if (carried && finding.kind !== row.kind) throw invalid([{ field: 'kind', message: `a finding carried forward keeps its kind (${FINDING_KIND_NAMES[row.kind].toLowerCase()}); record a new finding instead` }]);
+    if (nextDisposition !== 'repaired') await assertFindingFitsGirder(trx, row.girder_id, row.span_length_m, finding);
+
+    const changes = changedFields(findingFields(row), { ...finding, disposition: nextDisposition });
+    if (changes.fields.length === 0) return toFindingDetail(row);
+    await updateFinding(trx, findingId, version, findingColumnsOf(finding, nextDisposition), user.id);
+    await recordAuditEvent({ db: trx, user, action: 'finding.changed', entity: { type: 'finding', id: findingId }, before: changes.before, after: changes.after });
+    return toFindingDetail((await findFindingById(trx, findingId))!);
+  });
+}
+
+export async function removeFinding({ db, user }: Writer, findingId: number): Promise<void> {
+  await withTransaction(db, async (trx) => {
+    const row = await findFindingById(trx, findingId);
+    if (!row) throw AppError.notFound(`There is no finding with id ${findingId}`);
+    await inspectionOpenForChange(trx, user, row.inspection_id);
+    if (row.carried_from_id !== null) throw AppError.readOnly('A finding carried forward is not deleted: confirm it, record its growth, or mark it repaired');
+    await deleteFinding(trx, findingId);
+    await recordAuditEvent({ db: trx, user, action: 'finding.deleted', entity: { type: 'finding', id: findingId }, before: findingFields(row) });
+  });
+}
+
+/** Alerts the raters of the district to each critical finding not alerted before (a resubmission does not alert twice). */
+async function alertRatersToCriticalFindings(trx: Transaction, inspection: InspectionRow, findings: readonly FindingRow[]): Promise<void> {
+  const raters = await findUsersOfRoleInDistrict(trx, 'rater', inspection.district);
+  for (const finding of findings.filter((f) => f.critical)) {
+    if (await findingAlreadyAlerted(trx, finding.id)) continue;
+    const message = `${FINDING_KIND_NAMES[finding.kind]} on girder ${finding.girder_number} of span ${finding.span_index}, ${inspection.structure_number} (inspection of ${inspection.inspected_on} by ${inspection.inspector_name})`;
+    await insertAlerts(
+      trx,
+      [{ kind: 'critical-finding', message, structure_id: inspection.structure_id, girder_id: finding.girder_id, inspection_id: inspection.id, finding_id: finding.id }],
+      raters,
+    );
+  }
+}
+
+/**
+ * Submits an inspection for review once every carried-forward finding has been looked at: its
+ * findings go on the register (the ones they carry forward are superseded) and the district's
+ * raters are alerted to critical ones at once.
+ */
+export async function submitInspection({ db, user }: Writer, id: number, version: number): Promise<InspectionDetail> {
+  return withTransaction(db, async (trx) => {
+    const row = await inspectionOpenForChange(trx, user, id);
+    if (row.version !== version) throw AppError.versionConflict(`The inspection of ${row.inspected_on}`, await toInspectionDetail(trx, row));
+    const findings = await findFindingsOfInspection(trx, id);
+    const unreviewed = findings.flatMap((finding, index) =>
+      finding.disposition === 'to-review'
+        ? [{ field: `findings.${index}.disposition`, message: `carried forward from the last inspection (${FINDING_KIND_NAMES[finding.kind].toLowerCase()}, girder ${finding.girder_number} of span ${finding.span_index}): confirm it, record its growth, or mark it repaired` }]
+        : [],
+    );
+    if (unreviewed.length > 0) throw invalid(unreviewed);
+    await updateInspection(trx, id, version, { state: 'submitted', submitted_at: trx.fn.now(), return_comment: null }, user.id);
+    await supersedeCarriedFindings(trx, id);
+    await alertRatersToCriticalFindings(trx, row, findings);
+    await recordAuditEvent({ db: trx, user, action: 'inspection.submitted', entity: { type: 'inspection', id }, before: { state: row.state }, after: { state: 'submitted' } });
+    return toInspectionDetail(trx, (await findInspectionById(trx, id))!);
+  });
+}
+
+/** The submitted inspection a reviewer acts on, locked, when the reviewer may review in its district. */
+async function inspectionForReview(trx: Transaction, user: SignedInUser, id: number, version: number): Promise<InspectionRow> {
+  const row = await findInspectionById(trx, id, { forUpdate: true });
+  if (!row) throw inspectionNotFound(id);
+  if (!canInDistrict(user, 'reviewInspections', row.district)) throw AppError.forbidden(`You may not review inspections in ${row.district}`);
+  if (row.state !== 'submitted') throw AppError.readOnly(`The inspection of ${row.inspected_on} is ${row.state}, not waiting for review`);
+  if (row.version !== version) throw AppError.versionConflict(`The inspection of ${row.inspected_on}`, await toInspectionDetail(trx, row));
+  return row;
+}
+
+/** Accepts a submitted inspection; its condition ratings become the structure's. */
+export async function acceptInspection({ db, user }: Writer, id: number, version: number): Promise<InspectionDetail> {
+  return withTransaction(db, async (trx) => {
+    const row = await inspectionForReview(trx, user, id, version);
+    await updateInspection(trx, id, version, { state: 'accepted', reviewed_by: user.id, reviewed_at: trx.fn.now() }, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'inspection.accepted', entity: { type: 'inspection', id }, before: { state: row.state }, after: { state: 'accepted' } });
+    await takeConditionRatings(trx, user, row);
+    return toInspectionDetail(trx, (await findInspectionById(trx, id))!);
+  });
+}
+
+/** The structure's condition ratings as the accepted inspection gave them (those it gave), with its date. */
+async function takeConditionRatings(trx: Transaction, user: SignedInUser, inspection: InspectionRow): Promise<void> {
+  const structure = (await findStructureById(trx, inspection.structure_id, { forUpdate: true }))!;
+  if (structure.condition_rated_on !== null && structure.condition_rated_on > inspection.inspected_on) return;
+  const given = {
+    ...(inspection.deck_condition !== null ? { deckCondition: inspection.deck_condition } : {}),
+    ...(inspection.superstructure_condition !== null ? { superstructureCondition: inspection.superstructure_condition } : {}),
+    ...(inspection.substructure_condition !== null ? { substructureCondition: inspection.substructure_condition } : {}),
+  };
+  if (Object.keys(given).length === 0) return;
+  const changes = changedFields(
+    { deckCondition: structure.deck_condition, superstructureCondition: structure.superstructure_condition, substructureCondition: structure.substructure_condition, conditionRatedOn: structure.condition_rated_on },
+    { ...given, conditionRatedOn: inspection.inspected_on },
+  );
+  if (changes.fields.length === 0) return;
+  await updateStructure(
+    trx,
+    structure.id,
+    structure.version,
+    {
+      deck_condition: inspection.deck_condition ?? structure.deck_condition,
+      superstructure_condition: inspection.superstructure_condition ?? structure.superstructure_condition,
+      substructure_condition: inspection.substructure_condition ?? structure.substructure_condition,
+      condition_rated_on: inspection.inspected_on,
+    },
+    user.id,
+  );
+  await recordAuditEvent({ db: trx, user, action: 'structure.changed', entity: { type: 'structure', id: structure.id }, before: changes.before, after: { ...changes.after, fromInspection: inspection.id } });
+}
+
+export async function returnInspection({ db, user }: Writer, id: number, version: number, comment: string): Promise<InspectionDetail> {
+  return withTransaction(db, async (trx) => {
+    const row = await inspectionForReview(trx, user, id, version);
+    await updateInspection(trx, id, version, { state: 'returned', return_comment: comment, reviewed_by: user.id, reviewed_at: trx.fn.now() }, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'inspection.returned', entity: { type: 'inspection', id }, before: { state: row.state }, after: { state: 'returned', comment } });
+    return toInspectionDetail(trx, (await findInspectionById(trx, id))!);
+  });
+}
+
+/** A girder's damage register: every finding it has had, newest first, with its state on the register. */
+export async function girderFindings({ db }: Reader, girderId: number): Promise<FindingDetail[]> {
+  if (!(await findGirderById(db, girderId))) throw AppError.notFound(`There is no girder with id ${girderId}`);
+  return (await findFindingsOfGirder(db, girderId)).map(toFindingDetail);
+}
+
+/** What is open on the register for a span's girders: the damage a rating of the span applies. */
+export async function openFindingsOfSpan({ db }: Reader, spanId: number): Promise<FindingDetail[]> {
+  if (!(await db('spans').where({ id: spanId }).first('id'))) throw AppError.notFound(`There is no span with id ${spanId}`);
+  return (await findOpenFindingsOfSpan(db, spanId)).map(toFindingDetail);
+}
