@@ -3,6 +3,7 @@ import { createDatabase, migrationConfig, type Database } from '../../backend/sr
 import { runDataLoadOnce } from '../../backend/src/db/data-loads';
 import { syncReferenceLibrary } from '../../backend/src/library/reference-library';
 import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
+import { seed as seedDemoInspections } from '../../seeds/demo-inspections';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { DATA_DIR } from './project-paths';
@@ -11,6 +12,7 @@ import { connectionUrl, ensureDatabase, startCluster, waitUntilAccepting, type C
 export const DEMO_DATA_LOAD = 'demo-scenario';
 export const DEMO_INVENTORY_LOAD = 'demo-inventory';
 export const DEMO_CONDITIONS_LOAD = 'demo-conditions';
+export const DEMO_INSPECTIONS_LOAD = 'demo-inspections';
 
 /** The project-local cluster used by `npm start`: kept between runs, durable defaults. */
 export function localClusterSettings(port: number): ClusterSettings {
@@ -25,6 +27,7 @@ export async function prepareDatabase(db: Database, { loadDemo }: { loadDemo: bo
   // A database from before the inventory existed gets the demo girders once too.
   if (loadDemo) await runDataLoadOnce(db, DEMO_INVENTORY_LOAD, seedDemoInventory);
   if (loadDemo) await runDataLoadOnce(db, DEMO_CONDITIONS_LOAD, seedDemoConditions);
+  if (loadDemo) await runDataLoadOnce(db, DEMO_INSPECTIONS_LOAD, seedDemoInspections);
   return { migrations, demoLoaded };
 }
 

@@ -1,5 +1,6 @@
 import { runDataLoadOnce } from '../../backend/src/db/data-loads';
-import { DEMO_DATA_LOAD } from '../../scripts/lib/local-database';
+import { DEMO_DATA_LOAD, prepareDatabase } from '../../scripts/lib/local-database';
+import { DEMO_INSPECTED_STRUCTURES } from '../../seeds/demo-inspections';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
 
@@ -36,6 +37,18 @@ describe('the demo scenario', () => {
       .pluck('structure_number');
     expect(outside).toEqual([]);
   });
+
+  it('holds an inspection history with damage on the register and one critical finding waiting for review', async () => {
+    await prepareDatabase(testDb.db, { loadDemo: true });
+    const inspections = await testDb.db('inspections').join('structures', 'structures.id', 'inspections.structure_id').select('structure_number', 'state').orderBy('structure_number');
+    expect(inspections.map((i) => i.structure_number).sort()).toEqual([...DEMO_INSPECTED_STRUCTURES].sort());
+    expect(inspections.filter((i) => i.state === 'submitted')).toHaveLength(1);
+    const alerted = await testDb.db('alerts').join('users', 'users.id', 'alerts.user_id').distinct('users.display_name').pluck('display_name');
+    expect(alerted).toEqual(['Tomasz Brenek']);
+    // A second start loads nothing twice.
+    await prepareDatabase(testDb.db, { loadDemo: true });
+    expect(await testDb.db('inspections').count({ n: '*' })).toEqual([{ n: String(inspections.length) }]);
+  }, 60_000);
 
   it('leaves a failed load unrecorded so that it is tried again', async () => {
     await expect(runDataLoadOnce(testDb.db, 'broken-load', async () => Promise.reject(new Error('boom')))).rejects.toThrow('boom');
