@@ -1,7 +1,7 @@
 /**
  * `npm start`: system packages, the project-local PostgreSQL cluster, migrations, the demo
- * scenario, the front-end build, the local identity provider (unless a real one is configured),
- * then the server. Ctrl-C stops all of them.
+ * scenario, the front-end build, the local identity provider and the local photo store (unless
+ * real ones are configured), then the server. Ctrl-C stops all of them.
  */
 import path from 'node:path';
 import { loadConfig, type AppConfig } from '../backend/src/config';
@@ -10,6 +10,7 @@ import { buildFrontendIfChanged } from './lib/frontend-build';
 import { bringUpLocalDatabase, createDatabase, localClusterSettings, prepareDatabase } from './lib/local-database';
 import type { RunningIdentityProvider } from './lib/local-identity-provider/identity-provider';
 import { DEFAULT_LOCAL_IDP_PORT, loadOrCreateSessionSecret, localIdentityProviderSettings, startLocalIdentityProviderFor } from './lib/local-sign-in';
+import { DEFAULT_LOCAL_OBJECT_STORAGE_PORT, localObjectStorageSettings, startLocalObjectStorage, type RunningObjectStorage } from './lib/local-object-storage';
 import { stopCluster, type ClusterSettings } from './lib/postgres-cluster';
 import { DATA_DIR } from './lib/project-paths';
 import { ensureSystemPackages } from './lib/system-packages';
@@ -18,18 +19,26 @@ const loadDemo = process.env.SPANLEDGER_DEMO_DATA !== 'false';
 const IDP_KEYS_FOLDER = path.join(DATA_DIR, 'identity-provider');
 /** Set SAML_IDP_ENTRY_POINT (and the other SAML_IDP_* settings) to use a real identity provider instead. */
 const useLocalIdentityProvider = !process.env.SAML_IDP_ENTRY_POINT;
+const OBJECT_STORAGE_FOLDER = path.join(DATA_DIR, 'object-storage');
+/** Set S3_ENDPOINT (and the other S3_* settings) to keep photos in a real S3 store instead. */
+const useLocalObjectStorage = !process.env.S3_ENDPOINT;
 
-function localIdpPort(): number {
-  const port = Number(process.env.LOCAL_IDP_PORT ?? DEFAULT_LOCAL_IDP_PORT);
-  if (!Number.isInteger(port) || port < 1 || port > 65535) throw new Error(`LOCAL_IDP_PORT must be a port number, got "${process.env.LOCAL_IDP_PORT}"`);
+function portSetting(name: string, fallback: number): number {
+  const port = Number(process.env[name] ?? fallback);
+  if (!Number.isInteger(port) || port < 1 || port > 65535) throw new Error(`${name} must be a port number, got "${process.env[name]}"`);
   return port;
 }
 
-/** The environment plus what a developer's machine provides itself: a kept session secret and the local identity provider. */
+const localIdpPort = () => portSetting('LOCAL_IDP_PORT', DEFAULT_LOCAL_IDP_PORT);
+const localObjectStoragePort = () => portSetting('LOCAL_OBJECT_STORAGE_PORT', DEFAULT_LOCAL_OBJECT_STORAGE_PORT);
+const localObjectStorageUrl = () => `http://127.0.0.1:${localObjectStoragePort()}`;
+
+/** The environment plus what a developer's machine provides itself: a kept session secret, the local identity provider and photo store. */
 async function localEnvironment(): Promise<NodeJS.ProcessEnv> {
   const sessionSecret = process.env.SESSION_SECRET || loadOrCreateSessionSecret(DATA_DIR);
   const signIn = useLocalIdentityProvider ? await localIdentityProviderSettings(IDP_KEYS_FOLDER, localIdpPort()) : {};
-  return { ...process.env, SESSION_SECRET: sessionSecret, ...signIn };
+  const photos = useLocalObjectStorage ? localObjectStorageSettings(localObjectStorageUrl(), process.env.S3_BUCKET || undefined) : {};
+  return { ...process.env, SESSION_SECRET: sessionSecret, ...signIn, ...photos };
 }
 
 async function prepare(config: AppConfig, cluster: ClusterSettings, databaseName: string): Promise<void> {
@@ -58,14 +67,16 @@ async function main(): Promise<void> {
 
   let server: RunningServer | null = null;
   let identityProvider: RunningIdentityProvider | null = null;
+  let objectStorage: RunningObjectStorage | null = null;
   let stopping = false;
   const stop = async (signal: string) => {
     if (stopping) return;
     stopping = true;
-    console.log(`\n${signal}: stopping the server, the identity provider and the database…`);
+    console.log(`\n${signal}: stopping the server, the identity provider, the photo store and the database…`);
     try {
       await server?.close();
       await identityProvider?.close();
+      await objectStorage?.close();
       await stopCluster(cluster);
       console.log('Stopped.');
       process.exit(0);
@@ -80,16 +91,22 @@ async function main(): Promise<void> {
   try {
     await prepare(config, cluster, databaseName);
     if (useLocalIdentityProvider) identityProvider = await startLocalIdentityProviderFor(config, IDP_KEYS_FOLDER, localIdpPort());
+    if (useLocalObjectStorage) {
+      objectStorage = await startLocalObjectStorage({ port: localObjectStoragePort(), directory: OBJECT_STORAGE_FOLDER, buckets: [config.objectStorage.bucket] });
+    }
     server = await startServer(config);
   } catch (error) {
     console.error(`\n${error instanceof Error ? error.message : String(error)}`);
     await identityProvider?.close();
+    await objectStorage?.close();
     await stopCluster(cluster).catch(() => undefined);
     process.exit(1);
   }
   const signInFrom = identityProvider ? `the local identity provider at ${identityProvider.url}` : config.saml.idpEntryPoint;
   console.log(`\nSpanledger is running at ${config.publicUrl}  (Ctrl-C to stop)`);
-  console.log(`Signing in through ${signInFrom}\n`);
+  console.log(`Signing in through ${signInFrom}`);
+  const photosIn = objectStorage ? `the local photo store at ${objectStorage.url} (files in ${OBJECT_STORAGE_FOLDER})` : `bucket ${config.objectStorage.bucket} at ${config.objectStorage.endpoint}`;
+  console.log(`Keeping photos in ${photosIn}\n`);
 }
 
 main().catch((error: unknown) => {

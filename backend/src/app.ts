@@ -23,6 +23,8 @@ import { girdersRouter } from './girders/girders.router';
 import { libraryRouter } from './library/library.router';
 import { inspectionsRouter } from './inspections/inspections.router';
 import { alertsRouter } from './alerts/alerts.router';
+import { ObjectStorage } from './photos/object-storage';
+import { photosRouter } from './photos/photos.router';
 
 export interface AppDependencies {
   readonly config: AppConfig;
@@ -61,8 +63,10 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   api.use(spansRouter(db));
   api.use(girdersRouter(db));
   api.use(libraryRouter(db));
-  api.use(inspectionsRouter(db));
+  const photoStorage = new ObjectStorage(config.objectStorage, logger);
+  api.use(inspectionsRouter(db, photoStorage));
   api.use(alertsRouter(db));
+  api.use(photosRouter({ db, storage: photoStorage, sizeLimitBytes: config.photoSizeLimitBytes }));
   api.use(networkRegisterRouter(db));
   api.use(calcRouter());
   api.use(apiNotFound);

@@ -34,7 +34,30 @@ describe('loadConfig', () => {
         clockSkewMs: 60_000,
         attributes: { email: 'email', displayName: 'displayName', role: 'role', districts: 'districts', admin: 'admin' },
       },
+      objectStorage: { endpoint: null, region: 'us-east-1', bucket: 'spanledger-photos', credentials: null, forcePathStyle: false },
+      photoSizeLimitBytes: 10 * 1024 * 1024,
     });
+  });
+
+  it('reads the photo store, with path-style addresses by default for an endpoint of its own', () => {
+    const config = loadConfig({
+      ...SIGN_IN,
+      S3_ENDPOINT: 'http://127.0.0.1:9000/',
+      S3_REGION: 'eu-central-1',
+      S3_BUCKET: 'bridge-photos.north',
+      S3_ACCESS_KEY_ID: 'photo-writer',
+      S3_SECRET_ACCESS_KEY: 'a-storage-secret',
+      PHOTO_MAX_BYTES: '2097152',
+    });
+    expect(config.objectStorage).toEqual({
+      endpoint: 'http://127.0.0.1:9000',
+      region: 'eu-central-1',
+      bucket: 'bridge-photos.north',
+      credentials: { accessKeyId: 'photo-writer', secretAccessKey: 'a-storage-secret' },
+      forcePathStyle: true,
+    });
+    expect(config.photoSizeLimitBytes).toBe(2 * 1024 * 1024);
+    expect(loadConfig({ ...SIGN_IN, S3_ENDPOINT: 'https://objects.example.org', S3_FORCE_PATH_STYLE: 'false' }).objectStorage.forcePathStyle).toBe(false);
   });
 
   it('builds the database URL from its parts and prefers DATABASE_URL when given', () => {
@@ -70,6 +93,13 @@ describe('loadConfig', () => {
     [{ SAML_IDP_CERT: 'not a certificate' }, /SAML_IDP_CERT: expected a PEM certificate/],
     [{ SAML_IDP_CERT_FILE: '/no/such/file.pem' }, /set exactly one of them/],
     [{ SAML_CLOCK_SKEW_SECONDS: '3600' }, /SAML_CLOCK_SKEW_SECONDS: /],
+    [{ S3_ENDPOINT: 'ftp://objects.example.org' }, /S3_ENDPOINT: /],
+    [{ S3_BUCKET: 'Bridge_Photos' }, /S3_BUCKET: use 3 to 63 lower-case letters/],
+    [{ S3_REGION: 'Europe West' }, /S3_REGION: /],
+    [{ S3_ACCESS_KEY_ID: 'photo-writer' }, /S3_ACCESS_KEY_ID \/ S3_SECRET_ACCESS_KEY: set both of them or neither/],
+    [{ S3_FORCE_PATH_STYLE: 'yes' }, /S3_FORCE_PATH_STYLE: /],
+    [{ PHOTO_MAX_BYTES: '10MB' }, /PHOTO_MAX_BYTES: .*got "10MB"/],
+    [{ PHOTO_MAX_BYTES: '500' }, /PHOTO_MAX_BYTES: must be at least 1024/],
   ])('refuses %p naming the setting', (env, message) => {
     expect(() => loadConfig({ ...SIGN_IN, ...env })).toThrow(ConfigError);
     expect(() => loadConfig({ ...SIGN_IN, ...env })).toThrow(message);
@@ -78,6 +108,11 @@ describe('loadConfig', () => {
   it('never repeats the session secret in its complaint', () => {
     expect(() => loadConfig({ ...SIGN_IN, SESSION_SECRET: 'short-secret' })).toThrow(/SESSION_SECRET: .*\(value hidden\)/);
     expect(() => loadConfig({ ...SIGN_IN, SESSION_SECRET: 'short-secret' })).not.toThrow(/short-secret/);
+  });
+
+  it('never repeats the photo store secret in its complaint', () => {
+    expect(() => loadConfig({ ...SIGN_IN, S3_SECRET_ACCESS_KEY: 'a-storage-secret' })).toThrow(/S3_SECRET_ACCESS_KEY/);
+    expect(() => loadConfig({ ...SIGN_IN, S3_SECRET_ACCESS_KEY: 'a-storage-secret' })).not.toThrow(/a-storage-secret/);
   });
 
   it('treats an empty setting as unset', () => {

@@ -55,6 +55,26 @@ const configSchema = z.object({
   SAML_ATTRIBUTE_ROLE: attributeName.default('role'),
   SAML_ATTRIBUTE_DISTRICTS: attributeName.default('districts'),
   SAML_ATTRIBUTE_ADMIN: attributeName.default('admin'),
+
+  /** The S3-compatible photo store; unset means Amazon S3 itself in S3_REGION (`npm start` runs a local one). */
+  S3_ENDPOINT: z.url({ protocol: /^https?$/ }).optional(),
+  S3_REGION: z.string().regex(/^[a-z0-9-]{2,40}$/, 'expected a region name such as us-east-1').default('us-east-1'),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'use 3 to 63 lower-case letters, digits, dots and hyphens')
+    .default('spanledger-photos'),
+  /** Both or neither; with neither the S3 client finds credentials itself (AWS_* variables, an instance role). */
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Path-style addresses (endpoint/bucket/key); defaults to on with S3_ENDPOINT, which self-hosted stores mostly need. */
+  S3_FORCE_PATH_STYLE: booleanSetting.optional(),
+  /** Largest photo an upload accepts; the server holds it in memory while it checks it. */
+  PHOTO_MAX_BYTES: z.coerce
+    .number()
+    .int('must be a whole number of bytes')
+    .min(1024, 'must be at least 1024')
+    .max(100 * 1024 * 1024, 'must be at most 104857600 (100 MB)')
+    .default(10 * 1024 * 1024),
 });
 
 /** Names of the assertion attributes that carry each part of a user. */
@@ -83,6 +103,16 @@ export interface SessionConfig {
   readonly secureCookies: boolean;
 }
 
+export interface ObjectStorageConfig {
+  /** Null for Amazon S3 itself, found from the region. */
+  readonly endpoint: string | null;
+  readonly region: string;
+  readonly bucket: string;
+  /** Null lets the S3 client find credentials itself. */
+  readonly credentials: { readonly accessKeyId: string; readonly secretAccessKey: string } | null;
+  readonly forcePathStyle: boolean;
+}
+
 export interface AppConfig {
   readonly host: string;
   readonly port: number;
@@ -95,12 +125,14 @@ export interface AppConfig {
   readonly trustProxy: number;
   readonly session: SessionConfig;
   readonly saml: SamlConfig;
+  readonly objectStorage: ObjectStorageConfig;
+  readonly photoSizeLimitBytes: number;
 }
 
 export class ConfigError extends Error {}
 
 /** Settings whose values must never appear in a log or an error message. */
-const SECRET_SETTINGS = new Set(['SESSION_SECRET']);
+const SECRET_SETTINGS = new Set(['SESSION_SECRET', 'S3_SECRET_ACCESS_KEY']);
 
 function describeValue(key: string, env: NodeJS.ProcessEnv): string {
   if (env[key] === undefined || env[key] === '') return 'not set';
@@ -127,6 +159,15 @@ function readIdpCertificate(c: ParsedSettings): string {
   const pem = PEM_CERTIFICATE.exec(text ?? '')?.[0];
   if (!pem) throw new ConfigError('Invalid configuration:\n  SAML_IDP_CERT: expected a PEM certificate (-----BEGIN CERTIFICATE-----)');
   return pem;
+}
+
+/** The photo store's credentials from both of S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or from neither. */
+function readStorageCredentials(c: ParsedSettings): ObjectStorageConfig['credentials'] {
+  if ((c.S3_ACCESS_KEY_ID === undefined) !== (c.S3_SECRET_ACCESS_KEY === undefined)) {
+    throw new ConfigError('Invalid configuration:\n  S3_ACCESS_KEY_ID / S3_SECRET_ACCESS_KEY: set both of them or neither');
+  }
+  if (c.S3_ACCESS_KEY_ID === undefined || c.S3_SECRET_ACCESS_KEY === undefined) return null;
+  return { accessKeyId: c.S3_ACCESS_KEY_ID, secretAccessKey: c.S3_SECRET_ACCESS_KEY };
 }
 
 /** Reads and checks the configuration; a bad value stops the server with the name of the setting. */
@@ -172,5 +213,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
         admin: c.SAML_ATTRIBUTE_ADMIN,
       },
     },
+    objectStorage: {
+      endpoint: c.S3_ENDPOINT?.replace(/\/+$/, '') ?? null,
+      region: c.S3_REGION,
+      bucket: c.S3_BUCKET,
+      credentials: readStorageCredentials(c),
+      forcePathStyle: c.S3_FORCE_PATH_STYLE ?? c.S3_ENDPOINT !== undefined,
+    },
+    photoSizeLimitBytes: c.PHOTO_MAX_BYTES,
   };
 }

@@ -2,6 +2,7 @@ import { buildFrontendIfChanged } from '../../scripts/lib/frontend-build';
 import { createDatabase, prepareDatabase } from '../../scripts/lib/local-database';
 import { connectionUrl, ensureDatabase } from '../../scripts/lib/postgres-cluster';
 import { registerTeardown } from './global-teardown';
+import { startTestObjectStorage } from './object-storage-settings';
 import { prepareTestSigningKeys } from './sign-in-settings';
 import { startSignInTestBed } from './test-server';
 import { startThrowawayCluster } from './throwaway-cluster';
@@ -12,13 +13,14 @@ const JOURNEY_DATABASE = 'spanledger_journeys';
 /**
  * The browser journeys run against the real product: a built front end served by the real
  * server, over a throw-away cluster holding the demo scenario, signing in through the real local
- * identity provider.
+ * identity provider, keeping photos in a throw-away local photo store.
  */
 export default async function browserGlobalSetup(): Promise<void> {
   await buildFrontendIfChanged();
   const cluster = await startThrowawayCluster();
   registerTeardown(() => cluster.stop());
   registerTeardown(await prepareTestSigningKeys());
+  registerTeardown(await startTestObjectStorage());
 
   await ensureDatabase(cluster.port, JOURNEY_DATABASE);
   const url = connectionUrl(cluster.port, JOURNEY_DATABASE);

@@ -4,6 +4,8 @@ export interface ClientResponse {
   readonly status: number;
   readonly location: string | null;
   readonly text: string;
+  /** The body as it came, for images and other files. */
+  readonly bytes: Buffer;
   readonly headers: Headers;
 }
 
@@ -30,7 +32,10 @@ export class SignInClient {
     this.cookies.set(name, value);
   }
 
-  async request(pathOrUrl: string, init: { method?: string; form?: Record<string, string>; json?: unknown; xsrf?: boolean } = {}): Promise<ClientResponse> {
+  async request(
+    pathOrUrl: string,
+    init: { method?: string; form?: Record<string, string>; json?: unknown; multipart?: FormData; xsrf?: boolean } = {},
+  ): Promise<ClientResponse> {
     const url = pathOrUrl.startsWith('http') ? pathOrUrl : `${this.appUrl}${pathOrUrl}`;
     const headers: Record<string, string> = {};
     const ownSite = url.startsWith(this.appUrl);
@@ -39,7 +44,8 @@ export class SignInClient {
     if (ownSite && init.xsrf !== false && xsrfToken) headers['x-xsrf-token'] = decodeURIComponent(xsrfToken);
     if (init.form) headers['content-type'] = 'application/x-www-form-urlencoded';
     if (init.json !== undefined) headers['content-type'] = 'application/json';
-    const body = init.form ? new URLSearchParams(init.form).toString() : init.json !== undefined ? JSON.stringify(init.json) : undefined;
+    // fetch writes a multipart body's Content-Type itself, with the boundary.
+    const body = init.multipart ?? (init.form ? new URLSearchParams(init.form).toString() : init.json !== undefined ? JSON.stringify(init.json) : undefined);
     const response = await fetch(url, {
       method: init.method ?? (body !== undefined ? 'POST' : 'GET'),
       headers,
@@ -47,7 +53,9 @@ export class SignInClient {
       redirect: 'manual',
     });
     if (ownSite) this.keepCookies(response.headers.getSetCookie());
-    return { status: response.status, location: response.headers.get('location'), text: await response.text(), headers: response.headers };
+    const bytes = Buffer.from(await response.arrayBuffer());
+    // Decoded as response.text() does, which drops a leading byte-order mark.
+    return { status: response.status, location: response.headers.get('location'), text: new TextDecoder().decode(bytes), bytes, headers: response.headers };
   }
 
   /** Asks Spanledger to sign in; returns where it sends the browser and the AuthnRequest it made. */

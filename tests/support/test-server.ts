@@ -3,6 +3,7 @@ import { startServer, type RunningServer } from '../../backend/src/server';
 import type { RunningIdentityProvider } from '../../scripts/lib/local-identity-provider/identity-provider';
 import { startLocalIdentityProviderFor } from '../../scripts/lib/local-sign-in';
 import { findFreePort } from '../../scripts/lib/postgres-cluster';
+import { testObjectStorageEnv } from './object-storage-settings';
 import { testKeysFolder, testSignInEnv } from './sign-in-settings';
 
 export interface SignInTestBed {
@@ -13,8 +14,9 @@ export interface SignInTestBed {
 }
 
 /**
- * The real server on a free loopback port with the real local identity provider beside it. The
- * ports are chosen first because the SAML addresses (callback, audience) name the server's port.
+ * The real server on a free loopback port with the real local identity provider beside it, and a
+ * bucket of its own in the suite's photo store. The ports are chosen first because the SAML
+ * addresses (callback, audience) name the server's port.
  */
 export async function startSignInTestBed(databaseUrl: string, env: NodeJS.ProcessEnv = {}): Promise<SignInTestBed> {
   const [appPort, idpPort] = [await findFreePort(), await findFreePort()];
@@ -23,6 +25,7 @@ export async function startSignInTestBed(databaseUrl: string, env: NodeJS.Proces
     DATABASE_URL: databaseUrl,
     LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'silent',
     ...(await testSignInEnv(idpPort)),
+    ...(await testObjectStorageEnv()),
     ...env,
   });
   const identityProvider = await startLocalIdentityProviderFor(config, testKeysFolder(), idpPort);

@@ -3,6 +3,7 @@ import { findingChange, inspectionChange, inspectionReturn, inspectionStep, newF
 import { allow, signedInUser } from '../access/access-policy';
 import type { Database } from '../db/database';
 import { idFrom, parseRequest } from '../http/validate';
+import type { ObjectStorage } from '../photos/object-storage';
 import {
   acceptInspection,
   addFinding,
@@ -20,7 +21,7 @@ import {
 } from './inspections.service';
 
 /** Field inspections, their findings and the damage register. */
-export function inspectionsRouter(db: Database): Router {
+export function inspectionsRouter(db: Database, storage: ObjectStorage): Router {
   const router = Router();
   const writer = (req: Parameters<typeof signedInUser>[0]) => ({ db, user: signedInUser(req) });
 
@@ -40,7 +41,7 @@ export function inspectionsRouter(db: Database): Router {
     res.json(await changeInspection(writer(req), id, parseRequest(inspectionChange, req.body, 'body field')));
   });
   router.delete('/inspections/:id', allow.to('editOwnInspections'), async (req, res) => {
-    await removeInspection(writer(req), idFrom(req.params));
+    await removeInspection({ ...writer(req), storage }, idFrom(req.params));
     res.sendStatus(204);
   });
   router.post('/inspections/:id/findings', allow.to('editOwnInspections'), async (req, res) => {

@@ -20,6 +20,8 @@ import { damageIssuesOnGirder } from '../girders/girders.service';
 import { findGirderById } from '../girders/girders.repository';
 import { AppError } from '../http/app-error';
 import { findStructureById, updateStructure } from '../structures/structures.repository';
+import { findPhotoIdsOfFindings, findPhotosOfInspection } from '../photos/photos.repository';
+import type { ObjectStorage } from '../photos/object-storage';
 import { inspectionOpenForChange } from './inspection-access';
 import {
   deleteFinding,
@@ -55,7 +57,7 @@ function registerStateOf(row: FindingRow): FindingDetail['registerState'] {
   return row.disposition === 'repaired' ? 'repaired' : 'open';
 }
 
-function toFindingDetail(row: FindingRow): FindingDetail {
+function toFindingDetail(row: FindingRow, photoIds: readonly number[] = []): FindingDetail {
   const damage = {
     id: row.id,
     kind: row.kind,
@@ -82,7 +84,7 @@ function toFindingDetail(row: FindingRow): FindingDetail {
     registerState: registerStateOf(row),
     critical: row.critical,
     damageEntry: row.disposition === 'repaired' ? null : damageEntryOfFinding(damage),
-    photoIds: [],
+    photoIds,
     version: row.version,
   };
 }
@@ -100,8 +102,15 @@ function toSummary(row: InspectionRow, findingCount: number, criticalCount: numb
   };
 }
 
+/** Findings as the API answers them, each with the ids of its photos. */
+async function withPhotos(db: Database | Transaction, rows: readonly FindingRow[]): Promise<FindingDetail[]> {
+  const photoIds = await findPhotoIdsOfFindings(db, rows.map((row) => row.id));
+  return rows.map((row) => toFindingDetail(row, photoIds.get(row.id)));
+}
+
 async function toInspectionDetail(db: Database | Transaction, row: InspectionRow): Promise<InspectionDetail> {
-  const findings = (await findFindingsOfInspection(db, row.id)).map(toFindingDetail);
+  const findings = await withPhotos(db, await findFindingsOfInspection(db, row.id));
+  const photos = await findPhotosOfInspection(db, row.id);
   return {
     ...toSummary(row, findings.length, findings.filter((f) => f.critical).length),
     structureNumber: row.structure_number,
@@ -113,7 +122,7 @@ async function toInspectionDetail(db: Database | Transaction, row: InspectionRow
     submittedAt: row.submitted_at?.toISOString() ?? null,
     reviewed: row.reviewed_at ? { at: row.reviewed_at.toISOString(), by: row.reviewed_by_name } : null,
     findings,
-    photoIds: [],
+    photoIds: photos.map((photo) => photo.id),
     version: row.version,
   };
 }
@@ -218,14 +227,20 @@ export async function changeInspection({ db, user }: Writer, id: number, { versi
   });
 }
 
-/** Deletes a draft that was never submitted, with its findings; what was once submitted stays on the record. */
-export async function removeInspection({ db, user }: Writer, id: number): Promise<void> {
-  await withTransaction(db, async (trx) => {
+/**
+ * Deletes a draft that was never submitted, with its findings and photos; what was once submitted
+ * stays on the record. The photo files go once the deletion has committed.
+ */
+export async function removeInspection({ db, user, storage }: Writer & { storage: ObjectStorage }, id: number): Promise<void> {
+  const photoKeys = await withTransaction(db, async (trx) => {
     const row = await inspectionOpenForChange(trx, user, id);
     if (row.submitted_at !== null) throw AppError.readOnly('This inspection was submitted once; it stays on the record — change it and submit it again instead');
+    const photos = await findPhotosOfInspection(trx, id);
     await deleteInspection(trx, id);
     await recordAuditEvent({ db: trx, user, action: 'inspection.deleted', entity: { type: 'inspection', id }, before: inspectionFields(row) });
+    return photos.flatMap((photo) => [photo.object_key, photo.thumbnail_key]);
   });
+  await storage.deleteQuietly(photoKeys);
 }
 
 /** Where a problem the engine finds in a finding's damage entry lies in the finding. */
@@ -287,7 +302,7 @@ export async function addFinding({ db, user }: Writer, inspectionId: number, { g
     await assertFindingFitsGirder(trx, girderId, span.length_m, finding);
     const id = await insertFinding(trx, { ...findingColumnsOf(finding, 'new'), inspection_id: inspectionId, girder_id: girderId, carried_from_id: null }, user.id);
     await recordAuditEvent({ db: trx, user, action: 'finding.recorded', entity: { type: 'finding', id }, after: { girderId, ...finding } });
-    return toFindingDetail((await findFindingById(trx, id))!);
+    return (await withPhotos(trx, [(await findFindingById(trx, id))!]))[0]!;
   });
 }
 
@@ -316,10 +331,10 @@ export async function changeFinding({ db, user }: Writer, findingId: number, { v
     if (nextDisposition !== 'repaired') await assertFindingFitsGirder(trx, row.girder_id, row.span_length_m, finding);
 
     const changes = changedFields(findingFields(row), { ...finding, disposition: nextDisposition });
-    if (changes.fields.length === 0) return toFindingDetail(row);
+    if (changes.fields.length === 0) return (await withPhotos(trx, [row]))[0]!;
     await updateFinding(trx, findingId, version, findingColumnsOf(finding, nextDisposition), user.id);
     await recordAuditEvent({ db: trx, user, action: 'finding.changed', entity: { type: 'finding', id: findingId }, before: changes.before, after: changes.after });
-    return toFindingDetail((await findFindingById(trx, findingId))!);
+    return (await withPhotos(trx, [(await findFindingById(trx, findingId))!]))[0]!;
   });
 }
 
@@ -435,11 +450,11 @@ export async function returnInspection({ db, user }: Writer, id: number, version
 /** A girder's damage register: every finding it has had, newest first, with its state on the register. */
 export async function girderFindings({ db }: Reader, girderId: number): Promise<FindingDetail[]> {
   if (!(await findGirderById(db, girderId))) throw AppError.notFound(`There is no girder with id ${girderId}`);
-  return (await findFindingsOfGirder(db, girderId)).map(toFindingDetail);
+  return withPhotos(db, await findFindingsOfGirder(db, girderId));
 }
 
 /** What is open on the register for a span's girders: the damage a rating of the span applies. */
 export async function openFindingsOfSpan({ db }: Reader, spanId: number): Promise<FindingDetail[]> {
   if (!(await db('spans').where({ id: spanId }).first('id'))) throw AppError.notFound(`There is no span with id ${spanId}`);
-  return (await findOpenFindingsOfSpan(db, spanId)).map(toFindingDetail);
+  return withPhotos(db, await findOpenFindingsOfSpan(db, spanId));
 }
