@@ -7,7 +7,8 @@ import path from 'node:path';
 import { loadConfig, type AppConfig } from '../backend/src/config';
 import { startServer, type RunningServer } from '../backend/src/server';
 import { buildFrontendIfChanged } from './lib/frontend-build';
-import { bringUpLocalDatabase, createDatabase, localClusterSettings, prepareDatabase } from './lib/local-database';
+import { ObjectStorage } from '../backend/src/photos/object-storage';
+import { bringUpLocalDatabase, createDatabase, loadDemoPhotos, localClusterSettings, prepareDatabase } from './lib/local-database';
 import type { RunningIdentityProvider } from './lib/local-identity-provider/identity-provider';
 import { DEFAULT_LOCAL_IDP_PORT, loadOrCreateSessionSecret, localIdentityProviderSettings, startLocalIdentityProviderFor } from './lib/local-sign-in';
 import { DEFAULT_LOCAL_OBJECT_STORAGE_PORT, localObjectStorageSettings, startLocalObjectStorage, type RunningObjectStorage } from './lib/local-object-storage';
@@ -95,6 +96,7 @@ async function main(): Promise<void> {
       objectStorage = await startLocalObjectStorage({ port: localObjectStoragePort(), directory: OBJECT_STORAGE_FOLDER, buckets: [config.objectStorage.bucket] });
     }
     server = await startServer(config);
+    if (loadDemo && (await loadDemoPhotos(server.db, new ObjectStorage(config.objectStorage, server.logger)))) console.log('Added the demo scenario’s drawn pictures');
   } catch (error) {
     console.error(`\n${error instanceof Error ? error.message : String(error)}`);
     await identityProvider?.close();

@@ -4,6 +4,8 @@ import { runDataLoadOnce } from '../../backend/src/db/data-loads';
 import { syncReferenceLibrary } from '../../backend/src/library/reference-library';
 import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { seed as seedDemoInspections } from '../../seeds/demo-inspections';
+import { seedDemoPhotos } from '../../seeds/demo-photos';
+import type { ObjectStorage } from '../../backend/src/photos/object-storage';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { DATA_DIR } from './project-paths';
@@ -13,6 +15,7 @@ export const DEMO_DATA_LOAD = 'demo-scenario';
 export const DEMO_INVENTORY_LOAD = 'demo-inventory';
 export const DEMO_CONDITIONS_LOAD = 'demo-conditions';
 export const DEMO_INSPECTIONS_LOAD = 'demo-inspections';
+export const DEMO_PHOTOS_LOAD = 'demo-photos';
 
 /** The project-local cluster used by `npm start`: kept between runs, durable defaults. */
 export function localClusterSettings(port: number): ClusterSettings {
@@ -29,6 +32,11 @@ export async function prepareDatabase(db: Database, { loadDemo }: { loadDemo: bo
   if (loadDemo) await runDataLoadOnce(db, DEMO_CONDITIONS_LOAD, seedDemoConditions);
   if (loadDemo) await runDataLoadOnce(db, DEMO_INSPECTIONS_LOAD, seedDemoInspections);
   return { migrations, demoLoaded };
+}
+
+/** The demo inspections' drawn pictures, once, into the photo store (which must be running). */
+export async function loadDemoPhotos(db: Database, storage: ObjectStorage): Promise<boolean> {
+  return runDataLoadOnce(db, DEMO_PHOTOS_LOAD, (trx) => seedDemoPhotos(trx, storage));
 }
 
 /** Starts (or creates) the local cluster and its database, and returns its connection string. */

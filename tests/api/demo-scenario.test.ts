@@ -1,5 +1,10 @@
 import { runDataLoadOnce } from '../../backend/src/db/data-loads';
-import { DEMO_DATA_LOAD, prepareDatabase } from '../../scripts/lib/local-database';
+import { loadConfig } from '../../backend/src/config';
+import { createLogger } from '../../backend/src/logger';
+import { ObjectStorage } from '../../backend/src/photos/object-storage';
+import { DEMO_DATA_LOAD, loadDemoPhotos, prepareDatabase } from '../../scripts/lib/local-database';
+import { testObjectStorageEnv } from '../support/object-storage-settings';
+import { testSignInEnv } from '../support/sign-in-settings';
 import { DEMO_INSPECTED_STRUCTURES } from '../../seeds/demo-inspections';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
@@ -48,6 +53,17 @@ describe('the demo scenario', () => {
     // A second start loads nothing twice.
     await prepareDatabase(testDb.db, { loadDemo: true });
     expect(await testDb.db('inspections').count({ n: '*' })).toEqual([{ n: String(inspections.length) }]);
+  }, 60_000);
+
+  it('adds a drawn picture to each demo finding of damage, once, into the photo store', async () => {
+    const storage = new ObjectStorage(loadConfig({ ...(await testSignInEnv(9)), ...(await testObjectStorageEnv()) }).objectStorage, createLogger('silent'));
+    expect(await loadDemoPhotos(testDb.db, storage)).toBe(true);
+    const photos = await testDb.db('photos').select('object_key', 'thumbnail_key', 'finding_id');
+    const drawable = await testDb.db('findings').whereIn('kind', ['spall', 'lost-strands', 'strand-section-loss', 'crack']).count({ n: '*' });
+    expect(photos).toHaveLength(Number(drawable[0]!.n));
+    const stored = await storage.open(photos[0]!.thumbnail_key);
+    stored.body.destroy();
+    expect(await loadDemoPhotos(testDb.db, storage)).toBe(false);
   }, 60_000);
 
   it('leaves a failed load unrecorded so that it is tried again', async () => {

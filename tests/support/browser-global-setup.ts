@@ -1,5 +1,7 @@
 import { buildFrontendIfChanged } from '../../scripts/lib/frontend-build';
-import { createDatabase, prepareDatabase } from '../../scripts/lib/local-database';
+import { ObjectStorage } from '../../backend/src/photos/object-storage';
+import { createLogger } from '../../backend/src/logger';
+import { createDatabase, loadDemoPhotos, prepareDatabase } from '../../scripts/lib/local-database';
 import { connectionUrl, ensureDatabase } from '../../scripts/lib/postgres-cluster';
 import { registerTeardown } from './global-teardown';
 import { startTestObjectStorage } from './object-storage-settings';
@@ -24,14 +26,14 @@ export default async function browserGlobalSetup(): Promise<void> {
 
   await ensureDatabase(cluster.port, JOURNEY_DATABASE);
   const url = connectionUrl(cluster.port, JOURNEY_DATABASE);
+  const bed = await startSignInTestBed(url, { LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'warn' });
+  registerTeardown(() => bed.stop());
   const db = createDatabase(url, { min: 0, max: 1 });
   try {
     await prepareDatabase(db, { loadDemo: true });
+    await loadDemoPhotos(db, new ObjectStorage(bed.config.objectStorage, createLogger('silent')));
   } finally {
     await db.destroy();
   }
-
-  const bed = await startSignInTestBed(url, { LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'warn' });
-  registerTeardown(() => bed.stop());
   process.env[APP_URL_VARIABLE] = bed.server.url;
 }
