@@ -16,6 +16,18 @@ export const routes: Routes = [
     loadComponent: () => import('./structures/structure.page').then((m) => m.StructurePage),
   },
   {
+    path: 'girders/:id',
+    title: 'Girder · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./girders/girder-editor.page').then((m) => m.GirderEditorPage),
+  },
+  {
+    path: 'inspections/:id',
+    title: 'Inspection · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./inspections/inspection.page').then((m) => m.InspectionPage),
+  },
+  {
     path: 'my-role',
     title: 'What my role can do · Spanledger',
     canActivate: [signedInGuard],

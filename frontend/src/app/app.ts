@@ -5,13 +5,14 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { IsActiveMatchOptions, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { ROLE_NAMES, changeScope } from '@spanledger/shared';
 
+import { AlertsButtonComponent } from './alerts/alerts-button.component';
 import { SessionStore } from './session/session.store';
 import { UnitsSwitchComponent } from './units/units-switch.component';
 
 /** The shell: the product's top bar, with the signed-in user and the pages their role opens, above the page. */
 @Component({
   selector: 'sl-root',
-  imports: [MatToolbarModule, MatIconModule, MatButtonModule, RouterOutlet, RouterLink, RouterLinkActive, UnitsSwitchComponent],
+  imports: [MatToolbarModule, MatIconModule, MatButtonModule, RouterOutlet, RouterLink, RouterLinkActive, UnitsSwitchComponent, AlertsButtonComponent],
   template: `
     <mat-toolbar class="top-bar">
       <mat-icon class="product-mark" aria-hidden="true">architecture</mat-icon>
@@ -25,6 +26,10 @@ import { UnitsSwitchComponent } from './units/units-switch.component';
           <a mat-button routerLink="/my-role" routerLinkActive="active">What my role can do</a>
         </nav>
         <span class="spacer"></span>
+        <!-- Loaded once the first page is up, keeping the alerts' menu out of the first download. -->
+        @defer (on idle) {
+          <sl-alerts-button />
+        }
         <sl-units-switch />
         <div class="who" data-testid="signed-in-user">
           <span class="name" data-testid="user-name">{{ me.displayName }}</span>

@@ -1,10 +1,10 @@
-import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpClient, HttpContext, HttpErrorResponse, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 
-import { serverErrorInterceptor } from './server-error.interceptor';
+import { QUIET_ON_FAILURE, serverErrorInterceptor } from './server-error.interceptor';
 
 describe('serverErrorInterceptor', () => {
   let http: HttpClient;
@@ -70,6 +70,13 @@ describe('serverErrorInterceptor', () => {
     server.expectOne('api/structures').flush({ type: 'FeatureCollection', features: [] });
     await result;
 
+    expect(snackBarOpen).not.toHaveBeenCalled();
+  });
+
+  it('stays quiet for a background request marked so, and still hands the caller the error', async () => {
+    const result = firstValueFrom(http.get('api/alerts', { context: new HttpContext().set(QUIET_ON_FAILURE, true) })).catch((error: unknown) => error);
+    server.expectOne('api/alerts').flush(null, { status: 503, statusText: 'Service Unavailable' });
+    expect(await result).toBeInstanceOf(HttpErrorResponse);
     expect(snackBarOpen).not.toHaveBeenCalled();
   });
 });

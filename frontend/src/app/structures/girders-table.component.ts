@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
 import type { GirderSummary } from '@spanledger/shared';
 import { catchError, map, of, startWith, switchMap } from 'rxjs';
 
@@ -15,10 +16,10 @@ type GirdersState = { readonly kind: 'loading' } | { readonly kind: 'loaded'; re
 const POSITION_NAMES: Readonly<Record<GirderSummary['position'], string>> = { interior: 'Interior', exterior: 'Exterior' };
 const TENSIONING_NAMES: Readonly<Record<GirderSummary['tensioning'], string>> = { pre: 'Pretensioned', post: 'Post-tensioned' };
 
-/** The girders of one span, in girder-number order, with their section and strands in brief. */
+/** The girders of one span, in girder-number order, with their section and strands in brief; each opens its girder editor. */
 @Component({
   selector: 'sl-girders-table',
-  imports: [MatTableModule, MatProgressBarModule],
+  imports: [MatTableModule, MatProgressBarModule, RouterLink],
   template: `
     @switch (state().kind) {
       @case ('loading') {
@@ -35,7 +36,9 @@ const TENSIONING_NAMES: Readonly<Record<GirderSummary['tensioning'], string>> = 
             <table mat-table [dataSource]="rows()" class="girders" data-testid="girders-table" aria-label="Girders">
               <ng-container matColumnDef="number">
                 <th mat-header-cell *matHeaderCellDef scope="col">Girder</th>
-                <td mat-cell *matCellDef="let row">{{ row.girderNumber }}</td>
+                <td mat-cell *matCellDef="let row">
+                  <a class="girder-link" data-testid="girder-link" [routerLink]="['/girders', row.id]" [attr.aria-label]="'Open girder ' + row.girderNumber">{{ row.girderNumber }}</a>
+                </td>
               </ng-container>
               <ng-container matColumnDef="position">
                 <th mat-header-cell *matHeaderCellDef scope="col">Position</th>
@@ -78,6 +81,16 @@ const TENSIONING_NAMES: Readonly<Record<GirderSummary['tensioning'], string>> = 
     }
   `,
   styleUrl: './inventory-table.scss',
+  // A tap target a finger can hit on a tablet.
+  styles: `
+    .girder-link {
+      display: inline-flex;
+      align-items: center;
+      min-width: 44px;
+      min-height: 44px;
+      font-weight: 700;
+    }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class GirdersTableComponent {
@@ -109,6 +122,7 @@ export class GirdersTableComponent {
     const state = this.state();
     if (state.kind !== 'loaded') return [];
     return state.girders.map((girder) => ({
+      id: girder.id,
       girderNumber: girder.girderNumber,
       position: POSITION_NAMES[girder.position],
       section: girder.girderTypeName ?? 'Custom section',

@@ -9,10 +9,12 @@ import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTabGroupHarness } from '@angular/material/tabs/testing';
-import { ActivatedRoute, convertToParamMap } from '@angular/router';
+import { ActivatedRoute, Router, convertToParamMap, provideRouter } from '@angular/router';
 import type { SignedInUser, SpanDetail, StructureDetail } from '@spanledger/shared';
 import { of } from 'rxjs';
 
+import { localToday } from '../inspections/inspection-text';
+import { inspectionDetail, inspectionSummary } from '../inspections/inspections.testing';
 import { SessionStore } from '../session/session.store';
 import { UnitsStore } from '../units/units.store';
 import { girderSummary, historyEvent, spanDetail, structureDetail } from './inventory.testing';
@@ -30,6 +32,7 @@ class LocationMapStub {
 const INSPECTOR: SignedInUser = { id: 3, email: 'i@example.org', displayName: 'Tomasz Reyes', role: 'inspector', districts: ['North Plains'], admin: false };
 const RATER: SignedInUser = { id: 7, email: 'r@example.org', displayName: 'Priya Halloran', role: 'rater', districts: ['North Plains'], admin: false };
 const RATER_ELSEWHERE: SignedInUser = { ...RATER, id: 8, districts: ['East Valley'] };
+const INSPECTOR_ELSEWHERE: SignedInUser = { ...INSPECTOR, id: 5, districts: ['East Valley'] };
 
 const SPANS: SpanDetail[] = [
   spanDetail(),
@@ -52,6 +55,7 @@ describe('StructurePage', () => {
       providers: [
         provideHttpClient(),
         provideHttpClientTesting(),
+        provideRouter([]),
         { provide: ActivatedRoute, useValue: { paramMap: of(convertToParamMap({ id: String(structure.id) })) } },
         { provide: SessionStore, useValue: { user: signal(user) } },
         { provide: MatSnackBar, useValue: { open: snackBarOpen } },
@@ -163,11 +167,74 @@ describe('StructurePage', () => {
     const tabs = await loader.getHarness(MatTabGroupHarness);
 
     await tabs.selectTab({ label: 'Inspections' });
+    server.expectOne('api/structures/41/inspections').flush([]);
+    await fixture.whenStable();
     expect(textOf('inspections-empty')).toBe('No inspections recorded for this structure yet.');
     await tabs.selectTab({ label: 'Ratings' });
     expect(textOf('ratings-empty')).toBe('No ratings recorded for this structure yet.');
     await tabs.selectTab({ label: 'Postings' });
     expect(textOf('postings-empty')).toBe('No postings recorded for this structure yet.');
+  });
+
+  async function openInspectionsTab(answer: ReturnType<typeof inspectionSummary>[]): Promise<void> {
+    await (await loader.getHarness(MatTabGroupHarness)).selectTab({ label: 'Inspections' });
+    server.expectOne('api/structures/41/inspections').flush(answer);
+    await fixture.whenStable();
+  }
+
+  it("lists the structure's inspections newest first, each opening its page", async () => {
+    await openPage(RATER);
+    await openInspectionsTab([
+      inspectionSummary({ id: 78, inspectedOn: '2025-03-04', state: 'submitted', findingCount: 3, criticalCount: 1 }),
+      inspectionSummary({ id: 61, inspectedOn: '2023-04-18', kind: 'in-depth', state: 'accepted', inspectorName: 'Ines Okafor', findingCount: 1, criticalCount: 0 }),
+    ]);
+
+    const rows = [...fixture.nativeElement.querySelectorAll('[data-testid="inspection-row"]')] as HTMLElement[];
+    expect(rows.map(cellTexts)).toEqual([
+      ['Mar 4, 2025', 'Routine', 'Submitted', 'Tomasz Reyes', '3', '1'],
+      ['Apr 18, 2023', 'In-depth', 'Accepted', 'Ines Okafor', '1', '0'],
+    ]);
+    expect(rows[1]!.querySelector('[data-testid="inspection-link"]')?.getAttribute('href')).toBe('/inspections/61');
+    expect(element('start-inspection')).toBeNull();
+  });
+
+  it('lets an inspector of the district start an inspection, and opens it', async () => {
+    await openPage(INSPECTOR);
+    const navigate = jest.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
+    await openInspectionsTab([inspectionSummary({ id: 61, inspectedOn: '2023-04-18', state: 'accepted' })]);
+
+    await click('start-inspection');
+    const start = server.expectOne((request) => request.method === 'POST' && request.url === 'api/structures/41/inspections');
+    expect(start.request.body).toEqual({ inspectedOn: localToday(), kind: 'routine', deckCondition: null, superstructureCondition: null, substructureCondition: null, notes: '' });
+    start.flush(inspectionDetail({ id: 79 }));
+    await fixture.whenStable();
+
+    expect(navigate).toHaveBeenCalledWith(['/inspections', 79]);
+  });
+
+  it('says why an inspection was not started', async () => {
+    await openPage(INSPECTOR);
+    await openInspectionsTab([]);
+
+    await click('start-inspection');
+    server
+      .expectOne((request) => request.method === 'POST' && request.url === 'api/structures/41/inspections')
+      .flush({ error: { code: 'forbidden', message: 'You may not record inspections in North Plains' }, requestId: 'r-50' }, { status: 403, statusText: 'Forbidden' });
+    await fixture.whenStable();
+
+    expect(textOf('start-error')).toBe('The inspection was not started. You may not record inspections in North Plains (request r-50)');
+  });
+
+  it('offers no start to an inspector of another district, nor while an inspection is being written', async () => {
+    await openPage(INSPECTOR_ELSEWHERE);
+    await openInspectionsTab([]);
+    expect(element('start-inspection')).toBeNull();
+
+    TestBed.resetTestingModule();
+    await openPage(INSPECTOR);
+    await openInspectionsTab([inspectionSummary({ state: 'returned' })]);
+    expect(element('start-inspection')).toBeNull();
+    expect(textOf('inspection-in-progress')).toContain("Tomasz Reyes's inspection of Mar 4, 2025 is still being written (returned for changes)");
   });
 
   it('shows a rating of record with the caution', async () => {

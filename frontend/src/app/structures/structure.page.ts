@@ -10,6 +10,7 @@ import { ActivatedRoute } from '@angular/router';
 import { RESULT_CAUTION, STRUCTURE_STATUS_NAMES, canInDistrict, type SpanDetail, type StructureDetail } from '@spanledger/shared';
 import { Observable, Subject, catchError, map, of, switchMap } from 'rxjs';
 
+import { StructureInspectionsComponent } from '../inspections/structure-inspections.component';
 import { describeServerError, serverErrorReport } from '../server-errors/server-error';
 import { SessionStore } from '../session/session.store';
 import { HistoryPanelComponent } from './history-panel.component';
@@ -49,6 +50,7 @@ const COUNT_FORMAT = new Intl.NumberFormat('en');
     SpansPanelComponent,
     HistoryPanelComponent,
     StructureFormComponent,
+    StructureInspectionsComponent,
   ],
   templateUrl: './structure.page.html',
   styleUrl: './structure.page.scss',
