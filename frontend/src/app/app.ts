@@ -64,7 +64,8 @@ export class App {
   });
 
   protected async signOut(): Promise<void> {
-    await this.session.signOut();
+    // Leave the signed-in page first: its requests still on the way are cancelled, not refused once the session has ended.
     await this.router.navigate(['/sign-in']);
+    await this.session.signOut();
   }
 }

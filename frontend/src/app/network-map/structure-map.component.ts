@@ -15,12 +15,12 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { BoundingBox, RatingBasis, StructureFeature } from '@spanledger/shared';
 import type * as GeoJSON from 'geojson';
 import * as L from 'leaflet';
-import { EMPTY, catchError } from 'rxjs';
+import { EMPTY, ReplaySubject, catchError, combineLatest, first, race, switchMap, timer } from 'rxjs';
 
 import { ClientConfig, ClientConfigClient } from '../client-config/client-config.client';
 import { BasemapClient } from './basemap.client';
-import { MarkerLook, markerLook } from './marker-look';
-import { StructureMarker } from './structure-marker';
+import { markerLook } from './marker-look';
+import { StructureMarker, StructureMarkersLayer } from './structure-markers-layer';
 
 const INITIAL_CENTER: L.LatLngTuple = [39.5, -98.35];
 const INITIAL_ZOOM = 4;
@@ -34,6 +34,8 @@ const FIT_PADDING: L.PointTuple = [40, 40];
 const BASEMAP_PANES = { land: 150, countyBorders: 160, stateBorders: 170 } as const;
 type BasemapPane = keyof typeof BASEMAP_PANES;
 const BASEMAP_ATTRIBUTION = 'Boundaries: U.S. Census Bureau';
+/** When no markers have been painted by then (an empty network, a slow or failed request), the county lines are drawn anyway. */
+const COUNTY_LINES_AT_LATEST_MS = 5000;
 
 const LAND_STYLE: L.PathOptions = { stroke: false, fillColor: '#eef0ea', fillOpacity: 1 };
 const STATE_BORDER_STYLE: L.PathOptions = { color: '#7d8a90', weight: 1.2, fill: false };
@@ -78,13 +80,23 @@ export class StructureMapComponent {
   private readonly destroyRef = inject(DestroyRef);
 
   private readonly map = signal<L.Map | null>(null);
-  private readonly markerRenderer = L.canvas({ padding: 0.5, tolerance: 4 });
-  private readonly markerLayer = L.layerGroup();
-  private readonly markersById = new Map<number, StructureMarker>();
+  private readonly markersLayer = new StructureMarkersLayer((id) => {
+    this.focusedId = id;
+    this.structureClicked.emit(id);
+  });
   /** The structure last brought into view, so a marker click does not pan the map under the pointer. */
   private focusedId: number | null = null;
 
+  /** The map once created: the basemap, asked for at once, waits for it. */
+  private readonly createdMap = new ReplaySubject<L.Map>(1);
+  /** Emits after the frame that first showed markers. */
+  private readonly markersPainted = new ReplaySubject<void>(1);
+  private markersShown = false;
+
   constructor() {
+    // Asked for beside the page's structures rather than once the map exists; the county lines wait for the markers.
+    this.addVectorBasemap();
+    this.addConfiguredTiles();
     afterNextRender(() => this.createMap());
     effect(() => {
       const map = this.map();
@@ -103,45 +115,49 @@ export class StructureMapComponent {
     const map = L.map(container, { minZoom: MIN_ZOOM, maxZoom: MAX_ZOOM });
     for (const [pane, zIndex] of Object.entries(BASEMAP_PANES)) map.createPane(pane).style.zIndex = String(zIndex);
     map.setView(INITIAL_CENTER, INITIAL_ZOOM);
-    this.markerLayer.addTo(map);
-    map.on('moveend', () => this.viewChanged.emit(boundingBoxOf(map.getBounds())));
-
-    this.addVectorBasemap(map);
-    this.addConfiguredTiles(map);
+    this.markersLayer.addTo(map);
+    const reportView = () => this.viewChanged.emit(boundingBoxOf(map.getBounds()));
+    map.on('moveend', reportView);
+    const removeMap = removerOnceSettled(map);
 
     // The panel beside the map opens and closes: keep Leaflet's idea of the map size current.
     const resizeObserver = new ResizeObserver(() => map.invalidateSize());
     resizeObserver.observe(container);
     this.destroyRef.onDestroy(() => {
       resizeObserver.disconnect();
-      map.remove();
+      map.off('moveend', reportView);
+      removeMap();
     });
     this.map.set(map);
+    this.createdMap.next(map);
   }
 
-  private addVectorBasemap(map: L.Map): void {
-    this.basemapClient
-      .loadStates()
+  private addVectorBasemap(): void {
+    combineLatest([this.createdMap, this.basemapClient.loadStates()])
       .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe(({ land, stateBorders }) => {
+      .subscribe(([map, { land, stateBorders }]) => {
         basemapLayer(land, 'land', LAND_STYLE).addTo(map);
         basemapLayer(stateBorders, 'stateBorders', STATE_BORDER_STYLE).addTo(map);
       });
-    this.basemapClient
-      .loadCountyBorders()
+    // County lines are detail: asked for once the markers have been painted (or the map has waited long enough), so
+    // that their 0.8 MB and thousands of lines do not hold up the markers' first paint.
+    const countyBorders$ = race(this.markersPainted, timer(COUNTY_LINES_AT_LATEST_MS)).pipe(
+      first(),
+      switchMap(() => this.basemapClient.loadCountyBorders()),
+    );
+    combineLatest([this.createdMap, countyBorders$])
       .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe((countyBorders) => basemapLayer(countyBorders, 'countyBorders', COUNTY_BORDER_STYLE).addTo(map));
+      .subscribe(([map, countyBorders]) => basemapLayer(countyBorders, 'countyBorders', COUNTY_BORDER_STYLE).addTo(map));
   }
 
-  private addConfiguredTiles(map: L.Map): void {
-    this.clientConfigClient
-      .load()
-      .pipe(
-        // Without the settings the shipped vector basemap is all the map needs.
-        catchError(() => EMPTY),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe((config: ClientConfig) => {
+  private addConfiguredTiles(): void {
+    const config$ = this.clientConfigClient.load().pipe(
+      // Without the settings the shipped vector basemap is all the map needs.
+      catchError(() => EMPTY),
+    );
+    combineLatest([this.createdMap, config$])
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe(([map, config]: [L.Map, ClientConfig]) => {
         if (config.basemapTileUrl === null) return;
         L.tileLayer(config.basemapTileUrl, {
           maxZoom: MAX_ZOOM,
@@ -150,52 +166,52 @@ export class StructureMapComponent {
       });
   }
 
-  /** Brings the markers in step with the structures given, keeping (and restyling only as needed) those still in view. */
+  /** Shows the structures given, coloured by `basis`, with the picked one highlighted, and brings a newly picked one into view. */
   private showStructures(map: L.Map, structures: readonly StructureFeature[], selectedId: number | null, basis: RatingBasis): void {
-    const wanted = new Map(structures.map((structure) => [structure.properties.id, structure]));
-    for (const [id, marker] of this.markersById) {
-      if (!wanted.has(id)) {
-        this.markerLayer.removeLayer(marker);
-        this.markersById.delete(id);
-      }
+    const markers = structures.map((structure) => ({
+      id: structure.properties.id,
+      latLng: latLngOf(structure),
+      look: markerLook(structure.properties, basis, structure.properties.id === selectedId),
+    }));
+    this.markersLayer.show(markers);
+    if (markers.length > 0 && !this.markersShown) {
+      this.markersShown = true;
+      afterNextPaint(() => this.markersPainted.next());
     }
-    for (const [id, structure] of wanted) {
-      const latLng = latLngOf(structure);
-      const look = markerLook(structure.properties, basis, id === selectedId);
-      const existing = this.markersById.get(id);
-      if (!existing) {
-        this.addMarker(id, latLng, look);
-        continue;
-      }
-      if (!existing.getLatLng().equals(latLng)) existing.setLatLng(latLng);
-      // Low ratings and the picked structure are drawn last, so that neighbours do not hide them; new markers already are.
-      if (existing.show(look) && (look.belowOne || look.selected)) existing.bringToFront();
-    }
-    if (selectedId !== this.focusedId) this.focus(map, selectedId);
-    this.markerCount.set(this.markerLayer.getLayers().length);
+    if (selectedId !== this.focusedId) this.focus(map, selectedId, markers);
+    this.markerCount.set(markers.length);
   }
 
-  private addMarker(id: number, latLng: L.LatLng, look: MarkerLook): void {
-    const marker = new StructureMarker(latLng, { renderer: this.markerRenderer }).on('click', () => {
-      this.focusedId = id;
-      this.structureClicked.emit(id);
-    });
-    // Styled before it joins the map, so it is drawn once.
-    marker.show(look);
-    this.markersById.set(id, marker);
-    this.markerLayer.addLayer(marker);
-  }
-
-  private focus(map: L.Map, selectedId: number | null): void {
+  private focus(map: L.Map, selectedId: number | null, markers: readonly StructureMarker[]): void {
     this.focusedId = selectedId;
-    const marker = selectedId === null ? undefined : this.markersById.get(selectedId);
-    if (marker) map.panTo(marker.getLatLng());
+    const marker = markers.find(({ id }) => id === selectedId);
+    if (marker) map.panTo(marker.latLng);
   }
 
   private fitView(map: L.Map, structures: readonly StructureFeature[]): void {
     const bounds = L.latLngBounds(structures.map(latLngOf));
     map.fitBounds(bounds, { padding: FIT_PADDING, maxZoom: MAX_FIT_ZOOM });
   }
+}
+
+/**
+ * How to remove the map without breaking a zoom animation: Leaflet 1.9 starts one in the next frame
+ * and ends it from a timer, neither cancelled by `remove()`, so a map left mid-zoom (the framing at
+ * load, a wheel zoom) would throw. Removal waits for that frame, then for the zoom to end.
+ */
+function removerOnceSettled(map: L.Map): () => void {
+  let zooming = false;
+  map.on('zoomanim', () => (zooming = true)).on('zoomend', () => (zooming = false));
+  return () =>
+    requestAnimationFrame(() => {
+      if (zooming) map.once('zoomend', () => map.remove());
+      else map.remove();
+    });
+}
+
+/** Runs `task` once the next frame has been painted: a new task queued from that frame's animation callback. */
+function afterNextPaint(task: () => void): void {
+  requestAnimationFrame(() => setTimeout(task));
 }
 
 /** GeoJSON positions are [longitude, latitude]; Leaflet wants latitude first. */

@@ -30,10 +30,20 @@ export class SessionStore {
     return !!user && can(user, action);
   }
 
-  /** Ends the session on the server, then reloads the app signed out. */
+  /**
+   * Ends the session on the server. The app shows itself signed out first, so what polls for the
+   * signed-in user (alerts) stops and its requests are cancelled rather than refused; if the
+   * server cannot be told, the user is still signed in and is shown so.
+   */
   async signOut(): Promise<void> {
-    await firstValueFrom(this.http.post('auth/logout', null));
+    const user = this.current();
     this.settle(null);
+    try {
+      await firstValueFrom(this.http.post('auth/logout', null));
+    } catch (error) {
+      this.settle(user ?? null);
+      throw error;
+    }
   }
 
   private settle(user: SignedInUser | null): SignedInUser | null {
