@@ -91,7 +91,7 @@ export async function changeGirderType({ db, user }: { db: Database; user: Signe
     if (changes.fields.includes('section') && Number(row.girder_count) > 0) {
       for (const district of await findDistrictsUsingGirderType(trx, id)) assertMayEditIn(user, district);
       if (fields.section!.shape !== row.section.shape) {
-        throw invalid([{ field: 'section.shape', message: `${row.girder_count} girders use this type as a ${row.section.shape}; add a new type for the new shape` }]);
+        throw AppError.invalidFields([{ field: 'section.shape', message: `${row.girder_count} girders use this type as a ${row.section.shape}; add a new type for the new shape` }]);
       }
     }
     if (!(await updateGirderType(trx, id, version, fields, user.id))) throw AppError.versionConflict(`Girder type ${row.name}`, toGirderTypeSummary(row));
@@ -125,23 +125,14 @@ export async function getGirder({ db }: { db: Database }, id: number): Promise<G
   return toGirderDetail(row, await findStrandRows(db, id));
 }
 
-function invalid(fields: readonly { field: string; message: string }[]): AppError {
-  return new AppError({
-    code: 'validation_failed',
-    status: 400,
-    message: `Invalid body field${fields.length > 1 ? 's' : ''}: ${fields.map((f) => `${f.field}: ${f.message}`).join('; ')}`,
-    details: { fields },
-  });
-}
-
 /** The catalogue type a record names, with its overrides checked against the type's own dimensions. */
 async function typeSectionFor(db: Database | Transaction, record: GirderRecord): Promise<Record<string, unknown> | null> {
   if (record.girderTypeId === null) return null;
   const type = await findGirderTypeById(db, record.girderTypeId);
-  if (!type) throw invalid([{ field: 'girderTypeId', message: `there is no girder type with id ${record.girderTypeId}` }]);
+  if (!type) throw AppError.invalidFields([{ field: 'girderTypeId', message: `there is no girder type with id ${record.girderTypeId}` }]);
   const unknownKeys = Object.keys(record.sectionOverrides).filter((key) => typeof type.section[key] !== 'number');
   if (unknownKeys.length > 0) {
-    throw invalid(unknownKeys.map((key) => ({ field: `sectionOverrides.${key}`, message: `the ${type.name} section has no dimension "${key}"` })));
+    throw AppError.invalidFields(unknownKeys.map((key) => ({ field: `sectionOverrides.${key}`, message: `the ${type.name} section has no dimension "${key}"` })));
   }
   return type.section;
 }
@@ -167,7 +158,7 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
 
 function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number): void {
   const parsed = parseRateFile(rateFileOf(record, typeSection, span, row, skewDeg));
-  if (!parsed.ok) throw invalid(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
+  if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
 }
 
 /**

@@ -16,6 +16,12 @@ export type ErrorCode =
   | 'database_unavailable'
   | 'internal_error';
 
+export interface InvalidField {
+  /** Dotted path of the field, e.g. `bbox` for a query parameter or `spans.0.lengthM` in a body. */
+  readonly field: string;
+  readonly message: string;
+}
+
 export interface AppErrorOptions {
   readonly code: ErrorCode;
   readonly status: number;
@@ -38,6 +44,17 @@ export class AppError extends Error {
     this.code = code;
     this.status = status;
     this.details = details ?? null;
+  }
+
+  /** 400 naming each bad field (`barriers.0.loadKnM`), the way every validation error of the API reads. */
+  static invalidFields(fields: readonly InvalidField[], part = 'body field'): AppError {
+    const summary = fields.map((f) => `${f.field}: ${f.message}`).join('; ');
+    return new AppError({
+      code: 'validation_failed',
+      status: 400,
+      message: `Invalid ${part}${fields.length > 1 ? 's' : ''}: ${summary}`,
+      details: { fields },
+    });
   }
 
   static notFound(message: string): AppError {

@@ -1,11 +1,7 @@
 import { z } from 'zod';
-import { AppError } from './app-error';
+import { AppError, type InvalidField } from './app-error';
 
-export interface InvalidField {
-  /** Dotted path of the field, e.g. `bbox` for a query parameter or `spans.0.lengthM` in a body. */
-  readonly field: string;
-  readonly message: string;
-}
+export type { InvalidField };
 
 type RequestPart = 'query parameter' | 'body field' | 'path parameter';
 
@@ -19,13 +15,7 @@ export function parseRequest<S extends z.ZodType>(schema: S, value: unknown, par
     }
     return [{ field: issue.path.join('.') || '(root)', message: issue.message }];
   });
-  const summary = fields.map((f) => `${f.field}: ${f.message}`).join('; ');
-  throw new AppError({
-    code: 'validation_failed',
-    status: 400,
-    message: `Invalid ${part}${fields.length > 1 ? 's' : ''}: ${summary}`,
-    details: { fields },
-  });
+  throw AppError.invalidFields(fields, part);
 }
 
 /** The `:id` of a route such as `/structures/:id`: a positive whole number, else 400 naming `id`. */

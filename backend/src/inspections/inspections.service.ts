@@ -129,15 +129,6 @@ async function toInspectionDetail(db: Database | Transaction, row: InspectionRow
 
 const inspectionNotFound = (id: number) => AppError.notFound(`There is no inspection with id ${id}`);
 
-function invalid(fields: readonly { field: string; message: string }[]): AppError {
-  return new AppError({
-    code: 'validation_failed',
-    status: 400,
-    message: `Invalid body field${fields.length > 1 ? 's' : ''}: ${fields.map((f) => `${f.field}: ${f.message}`).join('; ')}`,
-    details: { fields },
-  });
-}
-
 export async function listInspectionsOfStructure({ db }: Reader, structureId: number): Promise<InspectionSummary[]> {
   if (!(await findStructureById(db, structureId))) throw AppError.notFound(`There is no structure with id ${structureId}`);
   return (await findInspectionsOfStructure(db, structureId)).map((row) => toSummary(row, Number(row.finding_count), Number(row.critical_count)));
@@ -269,7 +260,7 @@ async function assertFindingFitsGirder(trx: Transaction, girderId: number, spanL
       if (!fields.some((f) => f.field === field)) fields.push({ field, message: issue.message });
     }
   }
-  if (fields.length > 0) throw invalid(fields);
+  if (fields.length > 0) throw AppError.invalidFields(fields);
 }
 
 function findingColumnsOf(finding: FindingInput, disposition: FindingDetail['disposition']): FindingColumns {
@@ -296,7 +287,7 @@ export async function addFinding({ db, user }: Writer, inspectionId: number, { g
     const inspection = await inspectionOpenForChange(trx, user, inspectionId);
     const girder = await findGirderById(trx, girderId);
     if (!girder || girder.structure_id !== inspection.structure_id) {
-      throw invalid([{ field: 'girderId', message: `structure ${inspection.structure_number} has no girder with id ${girderId}` }]);
+      throw AppError.invalidFields([{ field: 'girderId', message: `structure ${inspection.structure_number} has no girder with id ${girderId}` }]);
     }
     const span = await trx('spans').where({ id: girder.span_id }).first('length_m');
     await assertFindingFitsGirder(trx, girderId, span.length_m, finding);
@@ -325,9 +316,9 @@ export async function changeFinding({ db, user }: Writer, findingId: number, { v
     if (row.version !== version) throw AppError.versionConflict(`The finding on girder ${row.girder_number} of span ${row.span_index}`, toFindingDetail(row));
     const nextDisposition = disposition ?? row.disposition;
     const carried = row.carried_from_id !== null;
-    if (!carried && nextDisposition !== 'new') throw invalid([{ field: 'disposition', message: 'a finding recorded in this inspection is new; confirm, grow or repair findings carried forward' }]);
-    if (carried && nextDisposition === 'new') throw invalid([{ field: 'disposition', message: 'a finding carried forward is confirmed, grown or repaired, not new' }]);
-    if (carried && finding.kind !== row.kind) throw invalid([{ field: 'kind', message: `a finding carried forward keeps its kind (${FINDING_KIND_NAMES[row.kind].toLowerCase()}); record a new finding instead` }]);
+    if (!carried && nextDisposition !== 'new') throw AppError.invalidFields([{ field: 'disposition', message: 'a finding recorded in this inspection is new; confirm, grow or repair findings carried forward' }]);
+    if (carried && nextDisposition === 'new') throw AppError.invalidFields([{ field: 'disposition', message: 'a finding carried forward is confirmed, grown or repaired, not new' }]);
+    if (carried && finding.kind !== row.kind) throw AppError.invalidFields([{ field: 'kind', message: `a finding carried forward keeps its kind (${FINDING_KIND_NAMES[row.kind].toLowerCase()}); record a new finding instead` }]);
     if (nextDisposition !== 'repaired') await assertFindingFitsGirder(trx, row.girder_id, row.span_length_m, finding);
 
     const changes = changedFields(findingFields(row), { ...finding, disposition: nextDisposition });
@@ -378,7 +369,7 @@ export async function submitInspection({ db, user }: Writer, id: number, version
         ? [{ field: `findings.${index}.disposition`, message: `carried forward from the last inspection (${FINDING_KIND_NAMES[finding.kind].toLowerCase()}, girder ${finding.girder_number} of span ${finding.span_index}): confirm it, record its growth, or mark it repaired` }]
         : [],
     );
-    if (unreviewed.length > 0) throw invalid(unreviewed);
+    if (unreviewed.length > 0) throw AppError.invalidFields(unreviewed);
     await updateInspection(trx, id, version, { state: 'submitted', submitted_at: trx.fn.now(), return_comment: null }, user.id);
     await supersedeCarriedFindings(trx, id);
     await alertRatersToCriticalFindings(trx, row, findings);

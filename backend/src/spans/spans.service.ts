@@ -69,7 +69,7 @@ function assertDiaphragmsOnSpan(lengthM: number, diaphragms: SpanDetail['diaphra
     diaphragm.xM > lengthM ? [{ field: `diaphragms.${index}.xM`, message: `lies beyond the span (${lengthM} m)` }] : [],
   );
   if (fields.length === 0) return;
-  throw new AppError({ code: 'validation_failed', status: 400, message: `Invalid body field: ${fields.map((f) => `${f.field}: ${f.message}`).join('; ')}`, details: { fields } });
+  throw AppError.invalidFields(fields);
 }
 
 /** Changes a span when the client's version is current (else 409), inside the user's districts, with a history entry. */

@@ -215,13 +215,7 @@ function checkCombined(values: Record<keyof StructureChangeFields, unknown>): Ap
   const fields: { field: string; message: string }[] = [];
   if (adt !== null && adtt !== null && adtt > adt) fields.push({ field: 'adtt', message: `truck traffic cannot exceed all traffic (ADT ${adt})` });
   if (yearBuilt !== null && yearLastMajorWork !== null && yearLastMajorWork < yearBuilt) fields.push({ field: 'yearLastMajorWork', message: `cannot be before the year built (${yearBuilt})` });
-  if (fields.length === 0) return null;
-  return new AppError({
-    code: 'validation_failed',
-    status: 400,
-    message: `Invalid body field${fields.length > 1 ? 's' : ''}: ${fields.map((f) => `${f.field}: ${f.message}`).join('; ')}`,
-    details: { fields },
-  });
+  return fields.length === 0 ? null : AppError.invalidFields(fields);
 }
 
 /** Whether a structure is posted or closed is a posting decision (permission matrix: managers). */
