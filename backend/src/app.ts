@@ -22,6 +22,7 @@ import { spansRouter } from './spans/spans.router';
 import { girdersRouter } from './girders/girders.router';
 import { libraryRouter } from './library/library.router';
 import { inspectionsRouter } from './inspections/inspections.router';
+import { ratingsRouter } from './ratings/ratings.router';
 import { alertsRouter } from './alerts/alerts.router';
 import { ObjectStorage } from './photos/object-storage';
 import { photosRouter } from './photos/photos.router';
@@ -65,6 +66,7 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   api.use(libraryRouter(db));
   const photoStorage = new ObjectStorage(config.objectStorage, logger);
   api.use(inspectionsRouter(db, photoStorage));
+  api.use(ratingsRouter(db));
   api.use(alertsRouter(db));
   api.use(photosRouter({ db, storage: photoStorage, sizeLimitBytes: config.photoSizeLimitBytes }));
   api.use(networkRegisterRouter(db));

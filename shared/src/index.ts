@@ -3,6 +3,7 @@ export * from './structures';
 export * from './inventory';
 export * from './girder-record';
 export * from './inspections';
+export * from './ratings';
 export * from './client-config';
 export * from './access';
 export * from './units';

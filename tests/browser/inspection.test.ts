@@ -62,9 +62,12 @@ describe('inspection journey', () => {
     await strands.first().waitFor();
     const bottomRow = await strands.first().getAttribute('data-row-id');
     const row = inspector.locator(`[data-testid="strand"][data-row-id="${bottomRow}"]`);
+    const tapped = inspector.getByTestId('strands-tapped');
+    // Each tap redraws the section: wait for it before the next, so the second tap lands on the new drawing.
     await row.nth(1).tap();
+    await tapped.filter({ hasText: /strand 1\b/ }).waitFor();
     await row.nth(2).tap();
-    expect(await inspector.getByTestId('strands-tapped').textContent()).toMatch(/1.*2/);
+    await tapped.filter({ hasText: /1.*2/ }).waitFor();
     await inspector.getByTestId('finding-from').fill('10');
     await inspector.getByTestId('finding-to').fill('11.5');
     await inspector.getByTestId('finding-severity-severe').click();

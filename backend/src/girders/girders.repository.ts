@@ -125,6 +125,27 @@ export interface GirderRow {
 
 export type StrandRowRecord = StoredGirder['strandRows'][number];
 
+const STRAND_ROW_COLUMNS = ['row_key', 'y_mm', 'strand_count', 'x_mm', 'strand_area_mm2', 'strand_diameter_mm', 'fpu_mpa', 'fpy_mpa', 'eps_mpa', 'fpe_mpa', 'bonded', 'unbonded_length_mm'] as const;
+
+/** Every girder of a span as a rating reads it: its row, its type's section and its strand rows in order. */
+export async function findStoredGirdersOfSpan(db: Database | Transaction, spanId: number): Promise<(StoredGirder & { id: number })[]> {
+  const girders: (GirderRow & { type_section: Record<string, unknown> | null })[] = await db({ g: 'girders' })
+    .leftJoin({ t: 'girder_types' }, 't.id', 'g.girder_type_id')
+    .where('g.span_id', spanId)
+    .orderBy('g.girder_number')
+    .select('g.*', 't.section as type_section');
+  const rows: (StrandRowRecord & { girder_id: number })[] = await db('strand_rows')
+    .whereIn('girder_id', girders.map((girder) => girder.id))
+    .orderBy(['girder_id', 'row_order'])
+    .select('girder_id', ...STRAND_ROW_COLUMNS);
+  return girders.map((girder) => ({
+    id: girder.id,
+    girder,
+    typeSection: girder.type_section,
+    strandRows: rows.filter((row) => row.girder_id === girder.id).map(({ girder_id: _girderId, ...row }) => row),
+  }));
+}
+
 export async function findGirderById(db: Database | Transaction, id: number, { forUpdate = false } = {}): Promise<GirderRow | undefined> {
   const query = db({ g: 'girders' })
     .join({ sp: 'spans' }, 'sp.id', 'g.span_id')
@@ -150,7 +171,7 @@ export async function findStrandRows(db: Database | Transaction, girderId: numbe
   return db('strand_rows')
     .where({ girder_id: girderId })
     .orderBy('row_order')
-    .select('row_key', 'y_mm', 'strand_count', 'x_mm', 'strand_area_mm2', 'strand_diameter_mm', 'fpu_mpa', 'fpy_mpa', 'eps_mpa', 'fpe_mpa', 'bonded', 'unbonded_length_mm');
+    .select(...STRAND_ROW_COLUMNS);
 }
 
 

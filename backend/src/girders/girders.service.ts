@@ -2,6 +2,7 @@ import { LIBRARY_VEHICLE_IDS, parseRateFile, type CalcFileIssue, type DamageEntr
 import { recordAuditEvent } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database, type Transaction } from '../db/database';
+import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { AppError } from '../http/app-error';
 import { findSpanById, type SpanRow } from '../spans/spans.repository';
 import { findStructureById } from '../structures/structures.repository';
@@ -200,6 +201,8 @@ export async function changeGirder({ db, user }: { db: Database; user: SignedInU
       throw AppError.versionConflict(`Girder ${row.girder_number}`, toGirderDetail(row, strandRows));
     }
     await recordAuditEvent({ db: trx, user, action: 'girder.changed', entity: { type: 'girder', id }, before: changes.before, after: changes.after });
+    // What a rating of the span reads has changed.
+    await markSpansReratingDue(trx, [row.span_id]);
     return toGirderDetail((await findGirderById(trx, id))!, await findStrandRows(trx, id));
   });
 }

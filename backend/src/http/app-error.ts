@@ -7,6 +7,8 @@ export type ErrorCode =
   | 'version_conflict'
   | 'already_exists'
   | 'read_only'
+  | 'not_ratable'
+  | 'not_approvable'
   | 'storage_unavailable'
   | 'unsupported_media_type'
   | 'sign_in_required'

@@ -100,6 +100,7 @@ export interface FindingRow {
   inspection_id: number;
   inspection_state: InspectionRow['state'];
   inspection_submitted_at: Date | null;
+  inspected_on: string;
   structure_id: number;
   girder_id: number;
   girder_number: number;
@@ -133,6 +134,7 @@ function findingsWithPlace(db: Db) {
       'f.*',
       'i.state as inspection_state',
       'i.submitted_at as inspection_submitted_at',
+      db.raw("to_char(i.inspected_on, 'YYYY-MM-DD') as inspected_on"),
       'i.structure_id',
       'g.girder_number',
       'g.span_id',

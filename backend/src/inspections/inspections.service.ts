@@ -19,6 +19,7 @@ import { withTransaction, type Database, type Transaction } from '../db/database
 import { damageIssuesOnGirder } from '../girders/girders.service';
 import { findGirderById } from '../girders/girders.repository';
 import { AppError } from '../http/app-error';
+import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { findStructureById, updateStructure } from '../structures/structures.repository';
 import { findPhotoIdsOfFindings, findPhotosOfInspection } from '../photos/photos.repository';
 import type { ObjectStorage } from '../photos/object-storage';
@@ -372,10 +373,17 @@ export async function submitInspection({ db, user }: Writer, id: number, version
     if (unreviewed.length > 0) throw AppError.invalidFields(unreviewed);
     await updateInspection(trx, id, version, { state: 'submitted', submitted_at: trx.fn.now(), return_comment: null }, user.id);
     await supersedeCarriedFindings(trx, id);
+    await markSpansReratingDue(trx, spansWithChangedDamage(findings));
     await alertRatersToCriticalFindings(trx, row, findings);
     await recordAuditEvent({ db: trx, user, action: 'inspection.submitted', entity: { type: 'inspection', id }, before: { state: row.state }, after: { state: 'submitted' } });
     return toInspectionDetail(trx, (await findInspectionById(trx, id))!);
   });
+}
+
+/** Spans where the inspection changes the damage a rating applies: new or grown damage with an effect on flexure, or damage repaired. */
+function spansWithChangedDamage(findings: readonly FindingRow[]): number[] {
+  const changed = findings.filter((finding) => finding.disposition !== 'confirmed' && finding.kind !== 'crack' && finding.kind !== 'other');
+  return [...new Set(changed.map((finding) => finding.span_id))];
 }
 
 /** The submitted inspection a reviewer acts on, locked, when the reviewer may review in its district. */

@@ -2,6 +2,7 @@ import type { SignedInUser, SpanChange, SpanDetail } from '../../../shared/src';
 import { recordAuditEvent } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database } from '../db/database';
+import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { AppError } from '../http/app-error';
 import { findStructureById } from '../structures/structures.repository';
 import { assertMayEditIn } from '../structures/structures.service';
@@ -88,6 +89,8 @@ export async function changeSpan({ db, user }: { db: Database; user: SignedInUse
     const columns = Object.fromEntries(changes.fields.map((field) => [COLUMN_OF[field as keyof SpanChangeFields], changes.after[field]])) as SpanColumns;
     if (!(await updateSpan(trx, id, version, columns, user.id))) throw AppError.versionConflict(`Span ${row.span_index}`, toSpanDetail(row));
     await recordAuditEvent({ db: trx, user, action: 'span.changed', entity: { type: 'span', id }, before: changes.before, after: changes.after });
+    // What a rating of the span reads has changed.
+    await markSpansReratingDue(trx, [id]);
     return toSpanDetail((await findSpanById(trx, id))!);
   });
 }
