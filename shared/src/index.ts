@@ -17,6 +17,6 @@ export * from './engine/live-load';
 export * from './engine/distribution';
 export { POLICY_LIBRARY, DEFAULT_POLICY_ID, ratingPolicySchema, type RatingPolicy } from './engine/policy/rating-policy';
 export { parseRateFile, rateFileSchema, spanSchema, type RateFile, type Span } from './engine/calc-file/rate-file';
-export { rateGirderLine, type RateOutput, type RatingStation, type ControllingRating } from './engine/rating/rate';
+export { rateGirderLine, type CapacityAlongSpan, type RateOutput, type RatingStation, type ControllingRating } from './engine/rating/rate';
 export type { RatingFactorKey } from './engine/rating/lrfr';
 export { ENGINE_VERSION } from './engine/version';

@@ -162,6 +162,12 @@ export interface RatingDetail extends RatingSummary {
 /** `GET /api/spans/:id/rating-setup`: what a new rating of the span would use. */
 export interface RatingSetup {
   readonly spanId: number;
+  readonly spanIndex: number;
+  readonly spanLengthM: number;
+  readonly structureId: number;
+  readonly structureNumber: string;
+  readonly structureName: string;
+  readonly district: string;
   readonly girders: readonly { readonly id: number; readonly girderNumber: number; readonly position: 'interior' | 'exterior' }[];
   readonly openFindings: readonly AppliedFinding[];
   readonly vehicles: readonly { readonly id: string; readonly version: string; readonly name: string; readonly category: string | null }[];

@@ -171,6 +171,12 @@ export async function ratingSetup({ db }: Reader, spanId: number): Promise<Ratin
   const ofRecord = await findRatingOfRecord(db, spanId);
   return {
     spanId,
+    spanIndex: sources.span.span_index,
+    spanLengthM: sources.span.length_m,
+    structureId: sources.structure.id,
+    structureNumber: sources.structure.structure_number,
+    structureName: sources.structure.name,
+    district: sources.structure.district,
     girders: sources.girders.map((girder) => ({ id: girder.id, girderNumber: girder.girder.girder_number, position: girder.girder.position })),
     openFindings: findingsAsApplied(sources.openFindings, sources.girders.map((girder) => girder.id), []),
     vehicles: sources.vehicles.map((row) => ({ id: row.id, version: row.version, name: row.definition.name ?? row.id, category: row.definition.category ?? null })),

@@ -28,6 +28,20 @@ export const routes: Routes = [
     loadComponent: () => import('./inspections/inspection.page').then((m) => m.InspectionPage),
   },
   {
+    path: 'spans/:id/rate',
+    title: 'Rate a span · Spanledger',
+    canActivate: [signedInGuard],
+    data: { opens: 'span' },
+    loadComponent: () => import('./ratings/span-rating.page').then((m) => m.SpanRatingPage),
+  },
+  {
+    path: 'ratings/:id',
+    title: 'Rating · Spanledger',
+    canActivate: [signedInGuard],
+    data: { opens: 'rating' },
+    loadComponent: () => import('./ratings/span-rating.page').then((m) => m.SpanRatingPage),
+  },
+  {
     path: 'my-role',
     title: 'What my role can do · Spanledger',
     canActivate: [signedInGuard],

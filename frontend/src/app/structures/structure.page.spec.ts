@@ -162,7 +162,7 @@ describe('StructurePage', () => {
     expect(textOf('girders-empty')).toBe('No girders are recorded for this span yet.');
   });
 
-  it('says plainly that inspections, ratings and postings are not recorded yet', async () => {
+  it('says plainly that inspections, ratings and postings are not recorded yet, and offers a rater each span to rate', async () => {
     await openPage(RATER);
     const tabs = await loader.getHarness(MatTabGroupHarness);
 
@@ -171,7 +171,11 @@ describe('StructurePage', () => {
     await fixture.whenStable();
     expect(textOf('inspections-empty')).toBe('No inspections recorded for this structure yet.');
     await tabs.selectTab({ label: 'Ratings' });
-    expect(textOf('ratings-empty')).toBe('No ratings recorded for this structure yet.');
+    server.expectOne('api/structures/41/ratings').flush([]);
+    await fixture.whenStable();
+    expect(textOf('ratings-empty')).toBe('No rating of record for this structure yet.');
+    expect(textOf('rating-records-empty')).toBe('No span of this structure has been rated yet.');
+    expect(fixture.nativeElement.querySelector('[data-testid="rate-span-1"]')?.getAttribute('href')).toMatch(/\/spans\/\d+\/rate$/);
     await tabs.selectTab({ label: 'Postings' });
     expect(textOf('postings-empty')).toBe('No postings recorded for this structure yet.');
   });
@@ -237,10 +241,23 @@ describe('StructurePage', () => {
     expect(textOf('inspection-in-progress')).toContain("Tomasz Reyes's inspection of Mar 4, 2025 is still being written (returned for changes)");
   });
 
-  it('shows a rating of record with the caution', async () => {
+  it('shows a rating of record with the caution, and the rating records of its spans', async () => {
     await openPage(RATER, structureDetail({ ratingOfRecord: { lowestLegalRatingFactor: 0.94, designInventoryRatingFactor: 1.12, approvedAt: '2024-07-01T10:00:00.000Z' } }));
 
     await (await loader.getHarness(MatTabGroupHarness)).selectTab({ label: 'Ratings' });
+    const stamp = { at: '2024-06-28T09:00:00.000Z', by: 'Priya Halloran' };
+    server.expectOne('api/structures/41/ratings').flush([
+      {
+        id: 12, structureId: 41, structureNumber: 'BV-N-0108', structureName: 'Test', district: 'North Plains', spanId: 5, spanIndex: 1, state: 'approved',
+        girderCount: 5, hypothetical: false, lowestLegalRf: 0.94, lowestInventoryRf: 1.12, created: { ...stamp, byUserId: 7 }, submitted: stamp, reviewed: stamp, version: 3,
+      },
+    ]);
+    await fixture.whenStable();
+    const row = element('rating-row')!;
+    expect(row.getAttribute('data-state')).toBe('approved');
+    expect(row.textContent).toContain('Rating of record');
+    expect(row.textContent).toContain('0.94');
+    expect(row.querySelector('[data-testid="rating-link"]')!.getAttribute('href')).toBe('/ratings/12');
 
     expect(fact('legalRatingFactor')).toBe('0.94');
     expect(fact('designInventoryRatingFactor')).toBe('1.12');

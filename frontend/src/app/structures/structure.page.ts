@@ -11,6 +11,7 @@ import { RESULT_CAUTION, STRUCTURE_STATUS_NAMES, canInDistrict, type SpanDetail,
 import { Observable, Subject, catchError, map, of, switchMap } from 'rxjs';
 
 import { StructureInspectionsComponent } from '../inspections/structure-inspections.component';
+import { StructureRatingsComponent } from '../ratings/structure-ratings.component';
 import { describeServerError, serverErrorReport } from '../server-errors/server-error';
 import { SessionStore } from '../session/session.store';
 import { HistoryPanelComponent } from './history-panel.component';
@@ -51,6 +52,7 @@ const COUNT_FORMAT = new Intl.NumberFormat('en');
     HistoryPanelComponent,
     StructureFormComponent,
     StructureInspectionsComponent,
+    StructureRatingsComponent,
   ],
   templateUrl: './structure.page.html',
   styleUrl: './structure.page.scss',

@@ -21,6 +21,16 @@ describe('measures', () => {
     expect(formatMeasure('unitWeight', 23.5, 'si', { withUnit: true })).toBe('23.5 kN/m³');
   });
 
+  it('shows moments per girder in kN·m or kip·ft', () => {
+    // 1 kip·ft = 1.3558179483314 kN·m, exact by definition of the foot (0.3048 m) and the pound-force
+    // (0.45359237 kg × 9.80665 m/s²). The shared table derives it from 1 kip = 4.448222 kN
+    // (engineering.md §1), 6.5 parts in 10⁷ lower, so 1000 kip·ft reads 1000.0007: agreement to a hundredth.
+    expect(toShownUnits('moment', 1355.8179483314, 'us')).toBeCloseTo(1000, 2);
+    expect(formatMeasure('moment', 1355.8179483314, 'us', { withUnit: true })).toBe('1,000.0 kip·ft');
+    expect(formatMeasure('moment', 2712.36, 'si', { withUnit: true })).toBe('2,712.4 kN·m');
+    expect(toStoredUnits('moment', 1000, 'us')).toBeCloseTo(1355.8179483314, 2);
+  });
+
   it('shows a dash for a value that is not recorded', () => {
     expect(formatMeasure('spanLength', null, 'us')).toBe('—');
   });
@@ -42,7 +52,7 @@ describe('measures', () => {
 
   it('labels units for headers and suffixes', () => {
     expect(unitLabel('spanLength', 'us')).toBe('ft');
-    expect(unitLabels('si')).toMatchObject({ spanLength: 'm', sectionSize: 'mm', lineLoad: 'kN/m', pointLoad: 'kN', unitWeight: 'kN/m³' });
-    expect(unitLabels('us')).toMatchObject({ spanLength: 'ft', sectionSize: 'in', deckLayout: 'ft', lineLoad: 'kip/ft', pointLoad: 'kip', strength: 'ksi' });
+    expect(unitLabels('si')).toMatchObject({ spanLength: 'm', sectionSize: 'mm', lineLoad: 'kN/m', pointLoad: 'kN', unitWeight: 'kN/m³', moment: 'kN·m' });
+    expect(unitLabels('us')).toMatchObject({ spanLength: 'ft', sectionSize: 'in', deckLayout: 'ft', lineLoad: 'kip/ft', pointLoad: 'kip', strength: 'ksi', moment: 'kip·ft' });
   });
 });

@@ -11,7 +11,7 @@ interface MeasureDefinition {
 }
 
 /**
- * The kinds of value the inventory pages show, each with its stored unit and the unit people read
+ * The kinds of value the pages show, each with its stored unit and the unit people read
  * in either system. All pairs are of one quantity, so `convert` accepts them.
  */
 const MEASURES = {
@@ -29,6 +29,8 @@ const MEASURES = {
   strength: { stored: 'MPa', shown: { si: 'MPa', us: 'ksi' } },
   /** Unit weights of concrete and overlays. */
   unitWeight: { stored: 'kN/m3', shown: { si: 'kN/m3', us: 'pcf' } },
+  /** Bending moments per girder: capacity and demand along the span. */
+  moment: { stored: 'kNm', shown: { si: 'kNm', us: 'kipFt' } },
 } as const satisfies Record<string, MeasureDefinition>;
 
 export type MeasureKind = keyof typeof MEASURES;
@@ -47,19 +49,21 @@ const DECIMALS: Partial<Record<Unit, number>> = {
   ksi: 2,
   'kN/m3': 1,
   pcf: 1,
+  kNm: 1,
+  kipFt: 1,
 };
 const DEFAULT_DECIMALS = 2;
 /** A typed US customary value is stored to a thousandth of a millimetre (or the like): no float noise like 30.479999999. */
 const STORED_DECIMALS = 6;
 
-const UNIT_LABELS: Partial<Record<Unit, string>> = { 'kN/m3': 'kN/m³' };
+const UNIT_LABELS: Partial<Record<Unit, string>> = { 'kN/m3': 'kN/m³', kNm: 'kN·m', kipFt: 'kip·ft' };
 
 /** The unit a kind of value is shown in, e.g. `unitOf('spanLength', 'us')` is 'ft'. */
 export function unitOf(kind: MeasureKind, system: UnitSystem): Unit {
   return MEASURES[kind].shown[system];
 }
 
-/** How a unit is written for people: 'kN/m³' rather than the conversion table's 'kN/m3'. */
+/** How a unit is written for people: 'kN/m³' and 'kN·m' rather than the conversion table's 'kN/m3' and 'kNm'. */
 export function unitLabel(kind: MeasureKind, system: UnitSystem): string {
   const unit = unitOf(kind, system);
   return UNIT_LABELS[unit] ?? unit;

@@ -1,0 +1,36 @@
+import type { ControllingRating, RatingFigures } from '@spanledger/shared';
+
+/** Rating factors are read to two decimals, as they are compared with 1.0. */
+export function ratingFactorText(ratingFactor: number | null): string {
+  return ratingFactor === null ? 'Not rated' : ratingFactor.toFixed(2);
+}
+
+/** "+0.12" / "−0.30" / "no change": a record against the rating of record. */
+export function ratingChangeText(now: number | null, before: number | null): string {
+  if (now === null || before === null) return '—';
+  const change = Number((now - before).toFixed(2));
+  if (change === 0) return 'no change';
+  return `${change > 0 ? '+' : '−'}${Math.abs(change).toFixed(2)}`;
+}
+
+const LEVEL_NAMES: Readonly<Record<ControllingRating['level'], string>> = {
+  inventory: 'Design inventory',
+  operating: 'Design operating',
+  legal: 'Legal load',
+  permit: 'Permit load',
+};
+const LIMIT_STATE_NAMES: Readonly<Record<ControllingRating['limitState'], string>> = { 'strength-i': 'Strength I', 'service-iii': 'Service III' };
+
+/** "Legal load · Strength I". */
+export function ratingCaseText(rating: Pick<ControllingRating, 'level' | 'limitState'>): string {
+  return `${LEVEL_NAMES[rating.level]} · ${LIMIT_STATE_NAMES[rating.limitState]}`;
+}
+
+/** A day and time of the record's steps, in the user's own zone. */
+const MOMENT_FORMAT = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeStyle: 'short' });
+export function momentText(isoDateTime: string): string {
+  return MOMENT_FORMAT.format(new Date(isoDateTime));
+}
+
+/** Whether the figures put a legal load below 1.0: the structure needs a posting decision. */
+export const belowLegal = (figures: RatingFigures) => figures.lowestLegalRf !== null && figures.lowestLegalRf < 1;
