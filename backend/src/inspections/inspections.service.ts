@@ -4,6 +4,7 @@ import {
   FINDING_KIND_NAMES,
   isCriticalFinding,
   type FindingChange,
+  type FindingDamage,
   type FindingDetail,
   type InspectionChange,
   type InspectionDetail,
@@ -58,8 +59,9 @@ function registerStateOf(row: FindingRow): FindingDetail['registerState'] {
   return row.disposition === 'repaired' ? 'repaired' : 'open';
 }
 
-function toFindingDetail(row: FindingRow, photoIds: readonly number[] = []): FindingDetail {
-  const damage = {
+/** The parts of a stored finding that say what damage it is and where, as `damageEntryOfFinding` reads them. */
+export function findingDamageOfRow(row: FindingRow): FindingDamage & { id: number } {
+  return {
     id: row.id,
     kind: row.kind,
     strands: row.strands,
@@ -70,6 +72,10 @@ function toFindingDetail(row: FindingRow, photoIds: readonly number[] = []): Fin
     fromM: row.from_m,
     toM: row.to_m,
   };
+}
+
+function toFindingDetail(row: FindingRow, photoIds: readonly number[] = []): FindingDetail {
+  const damage = findingDamageOfRow(row);
   return {
     ...damage,
     inspectionId: row.inspection_id,

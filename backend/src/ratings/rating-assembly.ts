@@ -14,6 +14,7 @@ import {
 import { girderCalcFileParts, type StoredGirder } from '../girders/girder-calc-file';
 import { AppError, type InvalidField } from '../http/app-error';
 import type { FindingRow } from '../inspections/inspections.repository';
+import { findingDamageOfRow } from '../inspections/inspections.service';
 import type { LibraryDefinitionRow } from '../library/library.repository';
 import type { SpanRow } from '../spans/spans.repository';
 import type { StructureRow } from '../structures/structures.repository';
@@ -109,20 +110,6 @@ function oldestFirst(findings: readonly FindingRow[]): FindingRow[] {
   return [...findings].sort((a, b) => a.inspected_on.localeCompare(b.inspected_on) || a.id - b.id);
 }
 
-function findingDamage(row: FindingRow): DamageEntry | null {
-  return damageEntryOfFinding({
-    id: row.id,
-    kind: row.kind,
-    strands: row.strands,
-    lossFraction: row.loss_fraction,
-    brokenWires: row.broken_wires,
-    spall: row.spall,
-    deckLossMm: row.deck_loss_mm,
-    fromM: row.from_m,
-    toM: row.to_m,
-  });
-}
-
 /** The span's open findings on the given girders, oldest first, each with its damage entry and the reason it is excluded, if it is. */
 export function findingsAsApplied(openFindings: readonly FindingRow[], girderIds: readonly number[], exclusions: RatingRun['exclusions']): AppliedFinding[] {
   const excludedReason = (id: number) => exclusions.find((exclusion) => exclusion.findingId === id)?.reason ?? null;
@@ -136,7 +123,7 @@ export function findingsAsApplied(openFindings: readonly FindingRow[], girderIds
       fromM: finding.from_m,
       toM: finding.to_m,
       inspectedOn: finding.inspected_on,
-      damageEntry: findingDamage(finding),
+      damageEntry: damageEntryOfFinding(findingDamageOfRow(finding)),
       excludedReason: excludedReason(finding.id),
     }));
 }
