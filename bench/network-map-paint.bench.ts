@@ -13,6 +13,7 @@ import { MAX_STRUCTURES_PER_REQUEST } from '../shared/src';
 import { launchBrowser, saveScreenshot, signInThroughProvider } from '../tests/support/browser';
 import { BENCH_SUBJECT, startBenchStack } from './support/bench-stack';
 import { runBenchmark } from './support/clean-up';
+import { describeMachineLoad, processWithChildren, watchMachineLoad } from './support/machine-load';
 
 const TARGET_MS = 1500;
 const MEASURED_LOADS = 5;
@@ -152,12 +153,19 @@ runBenchmark(async (cleanUp) => {
   const session = await signedInSession(browser, stack.appUrl);
 
   const loads: LoadFigures[] = [];
+  let machine: ReturnType<typeof watchMachineLoad> | null = null;
   // The first load warms the server and the page's code paths and is not counted.
   for (let index = -1; index < MEASURED_LOADS; index += 1) {
     const context = await browser.newContext({ viewport: VIEWPORT, storageState: session });
     try {
       const load = await measureLoad(context, stack.appUrl, { screenshot: index === MEASURED_LOADS - 1 });
       if (index >= 0) loads.push(load);
+      machine ??= watchMachineLoad(
+        new Map([
+          ['server', () => [stack.serverPid]],
+          ['PostgreSQL', () => processWithChildren(stack.databasePid)],
+        ]),
+      );
     } finally {
       await context.close();
     }
@@ -179,6 +187,8 @@ runBenchmark(async (cleanUp) => {
     const cause = drawn === MAX_STRUCTURES_PER_REQUEST ? `: the map's request for the whole network is capped at MAX_STRUCTURES_PER_REQUEST = ${MAX_STRUCTURES_PER_REQUEST}` : '';
     console.log(`  the map drew ${drawn} of the ${stack.structureCount} structures${cause}`);
   }
+  // The browser is among everything else: it runs on the same cores.
+  if (machine) console.log(`  while measured: ${describeMachineLoad(machine.stop())}`);
   const screenshotFile = loads.at(-1)?.screenshotFile;
   if (screenshotFile) console.log(`  the last load as drawn: ${path.relative(PROJECT_ROOT, screenshotFile)}`);
 });

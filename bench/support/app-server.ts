@@ -10,6 +10,8 @@ const STOP_TIMEOUT_MS = 10_000;
 
 export interface AppServerProcess {
   readonly url: string;
+  /** The server process's id, to tell how much CPU it used. */
+  readonly pid: number;
   /** Asks the server to finish open requests and stop; kills it if it has not stopped in time. */
   stop(): Promise<void>;
 }
@@ -47,7 +49,7 @@ export async function startAppServerProcess(settings: Record<string, string>): P
       });
       child.send({ settings } satisfies ServerSettingsMessage);
     });
-    return { url, stop: () => stopChild(child) };
+    return { url, pid: child.pid as number, stop: () => stopChild(child) };
   } catch (error) {
     await stopChild(child);
     throw error;

@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { loadConfig } from '../../backend/src/config';
-import { createDatabase } from '../../backend/src/db/database';
+import { createDatabase, type Database } from '../../backend/src/db/database';
 import { startLocalIdentityProviderFor } from '../../scripts/lib/local-sign-in';
 import { connectionUrl, ensureDatabase, findFreePort } from '../../scripts/lib/postgres-cluster';
 import { FRONTEND_DIST_DIR } from '../../scripts/lib/project-paths';
@@ -10,6 +10,7 @@ import { startThrowawayCluster, TEMPLATE_DATABASE } from '../../tests/support/th
 import { startAppServerProcess } from './app-server';
 import { benchStructures, seedBenchStructures } from './bench-network';
 import type { CleanUp } from './clean-up';
+import { parentOf } from './machine-load';
 
 const BENCH_DATABASE = 'spanledger_bench';
 /** A manager of the demo authority with every district: sees the whole benchmark network. */
@@ -18,11 +19,23 @@ export const BENCH_SUBJECT = 'bv-staff-3002';
 export interface BenchStack {
   readonly appUrl: string;
   readonly structureCount: number;
+  /** The server's process id. */
+  readonly serverPid: number;
+  /** The throw-away cluster's postmaster, whose children are its backends. */
+  readonly databasePid: number;
 }
 
 const elapsedMs = (started: bigint) => Math.round(Number(process.hrtime.bigint() - started) / 1e6);
 
-async function seededDatabase(clusterPort: number): Promise<{ url: string; structureCount: number }> {
+/** The postmaster of the cluster a connection is open to: the parent of that connection's backend. */
+async function postmasterPid(db: Database): Promise<number> {
+  const { rows } = await db.raw<{ rows: { pid: number }[] }>('select pg_backend_pid() as pid');
+  const postmaster = parentOf(rows[0]!.pid);
+  if (postmaster === null) throw new Error('could not find the PostgreSQL postmaster of the benchmark cluster');
+  return postmaster;
+}
+
+async function seededDatabase(clusterPort: number): Promise<{ url: string; structureCount: number; postmasterPid: number }> {
   await ensureDatabase(clusterPort, BENCH_DATABASE, TEMPLATE_DATABASE);
   const url = connectionUrl(clusterPort, BENCH_DATABASE);
   const db = createDatabase(url, { min: 0, max: 1 });
@@ -31,7 +44,7 @@ async function seededDatabase(clusterPort: number): Promise<{ url: string; struc
     const started = process.hrtime.bigint();
     await seedBenchStructures(db, structures);
     console.log(`Seeded ${structures.length} structures in ${elapsedMs(started)} ms`);
-    return { url, structureCount: structures.length };
+    return { url, structureCount: structures.length, postmasterPid: await postmasterPid(db) };
   } finally {
     await db.destroy();
   }
@@ -64,5 +77,5 @@ export async function startBenchStack(cleanUp: CleanUp, { forBrowser }: { forBro
   cleanUp.add('the local identity provider', () => identityProvider.close());
   const server = await startAppServerProcess(settings);
   cleanUp.add('the server', () => server.stop());
-  return { appUrl: server.url, structureCount: database.structureCount };
+  return { appUrl: server.url, structureCount: database.structureCount, serverPid: server.pid, databasePid: database.postmasterPid };
 }

@@ -1,4 +1,4 @@
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import connectPgSimple from 'connect-pg-simple';
 import type { RequestHandler, Request } from 'express';
 import session from 'express-session';
@@ -8,13 +8,20 @@ import type { Logger } from '../logger';
 
 export const SESSION_COOKIE = 'spanledger.sid';
 
-/** connect-pg-simple accepts any object with pg-promise's `any`; this one runs on Knex's own pool. */
+/**
+ * connect-pg-simple accepts any object with pg-promise's `any`; this one runs on Knex's own pool.
+ * Its few statements never change, so each is prepared once per connection and then only
+ * executed: the session read runs on every request, and parsing and planning it again each time
+ * costs the database more than the read itself.
+ */
 function knexQueryRunner(db: Database) {
+  // Named by their text, so two stores on one pool can never give one name to different statements.
+  const statementName = (sql: string) => `session-store-${createHash('sha256').update(sql).digest('hex').slice(0, 24)}`;
   return {
     async any(sql: string, parameters: unknown[]) {
-      const connection = (await db.client.acquireConnection()) as { query(sql: string, values: unknown[]): Promise<{ rows: unknown[] }> };
+      const connection = (await db.client.acquireConnection()) as { query(query: { name: string; text: string; values: unknown[] }): Promise<{ rows: unknown[] }> };
       try {
-        return (await connection.query(sql, parameters)).rows;
+        return (await connection.query({ name: statementName(sql), text: sql, values: parameters })).rows;
       } finally {
         await db.client.releaseConnection(connection);
       }

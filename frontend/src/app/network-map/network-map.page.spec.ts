@@ -31,6 +31,8 @@ class StructureMapStub {
 
 const KANSAS_VIEW: BoundingBox = { minLon: -100, minLat: 37.5, maxLon: -96.5, maxLat: 39.5 };
 const NEARBY_VIEW: BoundingBox = { minLon: -98.5, minLat: 38, maxLon: -97.5, maxLat: 38.5 };
+/** Holds only NP-0003 of the network below. */
+const WESTERN_VIEW: BoundingBox = { minLon: -100, minLat: 38.5, maxLon: -98.8, maxLat: 39.5 };
 
 const network = [
   structureFeature({ id: 1, structureNumber: 'NP-0003' }, [-99.1, 38.9]),
@@ -133,7 +135,7 @@ describe('NetworkMapPage', () => {
     await openPage();
     networkRequest().flush(structureAnswer(network));
 
-    map().viewChanged.emit(KANSAS_VIEW);
+    map().viewChanged.emit(WESTERN_VIEW);
     await afterDebounce();
     const stale = viewRequest();
     map().viewChanged.emit(NEARBY_VIEW);
@@ -142,6 +144,32 @@ describe('NetworkMapPage', () => {
     expect(stale.cancelled).toBe(true);
     viewRequest().flush(structureAnswer([network[2]!]));
     expect(await listedNumbers()).toEqual(['EV-0002']);
+  });
+
+  it('shows the network it has for a view that holds all of it, such as the view framed around it, without asking again', async () => {
+    await openPage();
+    networkRequest().flush(structureAnswer(network));
+
+    map().viewChanged.emit(KANSAS_VIEW);
+    await afterDebounce();
+    server.expectNone((r) => r.url === 'api/structures');
+    expect(await listedNumbers()).toEqual(['EV-0002', 'NP-0001', 'NP-0003']);
+
+    map().viewChanged.emit(WESTERN_VIEW);
+    await afterDebounce();
+    viewRequest().flush(structureAnswer([network[0]!]));
+    expect(await listedNumbers()).toEqual(['NP-0003']);
+  });
+
+  it('asks for a view holding the whole network when the network it has was cut short', async () => {
+    await openPage();
+    networkRequest().flush(structureAnswer(network, true, 48));
+
+    map().viewChanged.emit(KANSAS_VIEW);
+    await afterDebounce();
+    const request = viewRequest();
+    expect(request.request.params.get('bbox')).toBe('-100,37.5,-96.5,39.5');
+    request.flush(structureAnswer(network, true, 48));
   });
 
   it('ignores map moves made before the network has loaded', async () => {
@@ -206,7 +234,6 @@ describe('NetworkMapPage', () => {
     networkRequest().flush(structureAnswer(network));
     map().viewChanged.emit(KANSAS_VIEW);
     await afterDebounce();
-    viewRequest().flush(structureAnswer(network));
 
     const districts = await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="filter-district"]' }));
     await districts.open();
@@ -259,11 +286,17 @@ describe('NetworkMapPage', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Clear filters/ }))).click();
     await fixture.whenStable();
 
-    const cleared = viewRequest();
-    expect(cleared.request.params.keys()).toEqual(['bbox', 'limit']);
+    // Unfiltered, the view holds the whole network already loaded: that is the answer.
+    server.expectNone((r) => r.url === 'api/structures');
     expect(pageQuery()).toEqual({ ratingBasis: 'design-inventory' });
-    cleared.flush(structureAnswer(network));
     expect(await listedNumbers()).toEqual(['EV-0002', 'NP-0001', 'NP-0003']);
+
+    map().viewChanged.emit(NEARBY_VIEW);
+    await afterDebounce();
+    const unfiltered = viewRequest();
+    expect(unfiltered.request.params.keys()).toEqual(['bbox', 'limit']);
+    unfiltered.flush(structureAnswer([network[1]!, network[2]!]));
+    expect(await listedNumbers()).toEqual(['EV-0002', 'NP-0001']);
   });
 
   it('recolours the map by design inventory without asking the server again, and remembers it in the URL', async () => {

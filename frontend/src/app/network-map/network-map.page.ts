@@ -39,7 +39,7 @@ const NARROW_SCREEN = '(max-width: 720px)';
 type StructuresEvent =
   | { readonly kind: 'loading' }
   | { readonly kind: 'network-loaded'; readonly network: StructureFeatureCollection }
-  /** Nothing filters and the map has not moved yet: the whole network is the answer. */
+  /** Nothing filters and the view holds the whole network (or the map has not moved yet): the network is the answer. */
   | { readonly kind: 'network-shown' }
   | { readonly kind: 'loaded'; readonly answer: StructureFeatureCollection }
   | { readonly kind: 'failed'; readonly message: string };
@@ -92,9 +92,15 @@ export class NetworkMapPage {
   );
   protected readonly filters = toSignal(this.filters$, { requireSync: true });
 
+  /** The whole network as first loaded, once it has arrived. */
+  private network: StructureFeatureCollection | null = null;
+
   // The whole network first; map moves made before it arrives are dropped, since the map is about to be framed anyway.
   private readonly structuresInView$: Observable<StructuresInView> = concat(
-    this.request(this.structuresClient.fetchNetwork(), (network) => ({ kind: 'network-loaded', network })),
+    this.request(this.structuresClient.fetchNetwork(), (network) => {
+      this.network = network;
+      return { kind: 'network-loaded', network };
+    }),
     combineLatest([
       this.filters$.pipe(distinctUntilChanged(sameStructureQuery)),
       this.viewChanges.pipe(debounceTime(VIEW_CHANGE_DEBOUNCE_MS), startWith(null)),
@@ -159,7 +165,9 @@ export class NetworkMapPage {
   }
 
   private structuresMatching(filters: MapFilters, view: BoundingBox | null): Observable<StructuresEvent> {
-    if (view === null && !hasActiveFilters(filters)) return of<StructuresEvent>({ kind: 'network-shown' });
+    // Framing the map around the network moves it to a view holding all of it: asking again would fetch the same answer.
+    const wholeNetworkInView = view === null || (this.network !== null && holdsWholeNetwork(view, this.network));
+    if (wholeNetworkInView && !hasActiveFilters(filters)) return of<StructuresEvent>({ kind: 'network-shown' });
     return this.request(this.structuresClient.fetchMatching(filters, view), (answer) => ({ kind: 'loaded', answer }));
   }
 
@@ -188,6 +196,14 @@ function nextState(state: StructuresInView, event: StructuresEvent): StructuresI
     case 'failed':
       return { ...state, loading: false, errorMessage: event.message };
   }
+}
+
+/** Whether every structure of a complete network lies in the view (edges included, as the server's bounding box test). */
+function holdsWholeNetwork(view: BoundingBox, network: StructureFeatureCollection): boolean {
+  if (network.truncated) return false;
+  return network.features.every(({ geometry: { coordinates: [lon, lat] } }) => {
+    return lon !== undefined && lat !== undefined && lon >= view.minLon && lon <= view.maxLon && lat >= view.minLat && lat <= view.maxLat;
+  });
 }
 
 function failureMessage(error: unknown): string {
