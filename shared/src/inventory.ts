@@ -74,6 +74,8 @@ export const structureListQuery = z.strictObject({
   ratingBasis: z.enum(RATING_BASES).optional().default('legal'),
   /** Structures whose lowest condition rating (deck, superstructure, substructure) is at most this. */
   conditionAtMost: wholeNumberText(0, 9).optional(),
+  /** Only structures with a span due for re-rating (`true`). */
+  reratingDue: z.literal('true', 'expected "true", or leave it out').transform(() => true).optional(),
   /** Part of the structure number or the name, any case. */
   search: z.string().trim().max(100, 'at most 100 characters').optional(),
   sort: sortParameter.optional().default({ key: 'structureNumber', descending: false }),
@@ -143,6 +145,8 @@ export interface StructureDetail {
   readonly status: StructureStatus;
   readonly notes: string;
   readonly ratingOfRecord: RatingOfRecordSummary | null;
+  /** A span's damage or inventory changed after its rating of record was run (or it has none yet). */
+  readonly reratingDue: boolean;
   readonly spans: readonly SpanSummary[];
   readonly version: number;
   readonly created: UserStamp;

@@ -61,6 +61,8 @@ export interface StructureSummary {
   readonly legalRatingFactor: number | null;
   /** Design-load inventory rating factor of the rating of record; null when not rated. */
   readonly designInventoryRatingFactor: number | null;
+  /** A span's damage or inventory changed after its rating of record was run (or it has none yet). */
+  readonly reratingDue: boolean;
 }
 
 export type StructureFeature = Feature<Point, StructureSummary>;

@@ -1,4 +1,4 @@
-import { parseRateFile, rateGirderLine, type GirderDetail, type InspectionDetail, type RatingDetail, type RatingSetup, type RatingSummary, type StructureDetail } from '../../shared/src';
+import { parseRateFile, rateGirderLine, type GirderDetail, type InspectionDetail, type RatingDetail, type RatingSetup, type RatingSummary, type StructureDetail, type StructureFeatureCollection } from '../../shared/src';
 import { syncReferenceLibrary } from '../../backend/src/library/reference-library';
 import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
@@ -164,6 +164,12 @@ describe('ratings API', () => {
   it('takes a rating through submit, return, run again and approval by someone else; it becomes the rating of record', async () => {
     const { structure, span, girder } = await placeIn('South District', 2);
     await recordLostStrands(structure.id, girder, [0, 1]);
+    const due = async () => {
+      const detail = (await call<StructureDetail>('managerNetwork', `/api/structures/${structure.id}`)).body;
+      const listed = (await call<StructureFeatureCollection>('managerNetwork', '/api/structures?reratingDue=true&limit=20000')).body;
+      return { detail: detail.reratingDue, listed: listed.features.some((feature) => feature.id === structure.id) };
+    };
+    expect(await due()).toEqual({ detail: true, listed: true });
     const draft = (await runOn('raterEastSouth', span.id)).body;
     expect((await call('raterCentral', `/api/ratings/${draft.id}/submit`, { json: { version: draft.version } })).status).toBe(403);
     expect((await step('raterEastSouth', { ...draft, version: draft.version + 5 }, 'submit')).status).toBe(409);
@@ -202,6 +208,7 @@ describe('ratings API', () => {
     expect(figures).toMatchObject({ rating_of_record_legal_rf: approved.body.lowestLegalRf, rating_of_record_inventory_rf: approved.body.lowestInventoryRf });
     expect(figures.rating_of_record_approved_at).not.toBeNull();
     expect(await dueFlag(span.id)).toBeNull();
+    expect(await due()).toEqual({ detail: false, listed: false });
 
     // The next approved rating supersedes it and names it as the one before.
     const next = (await runOn('raterEastSouth', span.id)).body;

@@ -73,6 +73,7 @@ describe('GET /api/structures', () => {
         lowestCondition: null,
         legalRatingFactor: null,
         designInventoryRatingFactor: null,
+        reratingDue: false,
       },
     });
   });

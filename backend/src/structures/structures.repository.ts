@@ -26,6 +26,7 @@ export interface StructureRow {
   lowest_condition: number | null;
   rating_of_record_legal_rf: number | null;
   rating_of_record_inventory_rf: number | null;
+  rerating_due: boolean;
   rating_of_record_approved_at: Date | null;
   version: number;
   created_at: Date;
@@ -60,6 +61,8 @@ export type StructureColumns = Partial<
 type Db = Database | Transaction;
 
 const LOWEST_CONDITION = 'least(s.deck_condition, s.superstructure_condition, s.substructure_condition)';
+/** A span of the structure has damage or inventory changes no approved rating has taken in. */
+const RERATING_DUE = 'exists (select 1 from spans as due where due.structure_id = s.id and due.rerating_due_since is not null)';
 
 function ratingColumn(basis: StructureListQuery['ratingBasis']): string {
   return basis === 'legal' ? 's.rating_of_record_legal_rf' : 's.rating_of_record_inventory_rf';
@@ -100,6 +103,7 @@ function selectStructureColumns(db: Db, query: Knex.QueryBuilder): Knex.QueryBui
     's.rating_of_record_legal_rf',
     's.rating_of_record_inventory_rf',
     's.rating_of_record_approved_at',
+    db.raw(`${RERATING_DUE} as rerating_due`),
     's.version',
     's.created_at',
     's.updated_at',
@@ -114,11 +118,12 @@ const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}
 /** The filters of a structure list, shared by the page of rows and the count of all of them. */
 function applyFilters(db: Db, query: Knex.QueryBuilder, filter: StructureListQuery): Knex.QueryBuilder {
   const st = postgis(db);
-  const { bbox, district, status, ratingBand, conditionAtMost, search } = filter;
+  const { bbox, district, status, ratingBand, conditionAtMost, reratingDue, search } = filter;
   if (bbox) query.where(st.boundingBoxIntersects('s.location', st.makeEnvelope(bbox.minLon, bbox.minLat, bbox.maxLon, bbox.maxLat, 4326)));
   if (district && district.length > 0) query.whereIn('s.district', district);
   if (status && status.length > 0) query.whereIn('s.status', status);
   if (conditionAtMost !== undefined) query.whereRaw(`${LOWEST_CONDITION} <= ?`, [conditionAtMost]);
+  if (reratingDue) query.whereRaw(RERATING_DUE);
   if (search) query.where((q) => q.whereILike('s.structure_number', likePattern(search)).orWhereILike('s.name', likePattern(search)));
   if (ratingBand && ratingBand.length > 0) {
     const column = ratingColumn(filter.ratingBasis);
@@ -158,6 +163,7 @@ export interface StructureListRow {
   lowest_condition: number | null;
   rating_of_record_legal_rf: number | null;
   rating_of_record_inventory_rf: number | null;
+  rerating_due: boolean;
 }
 
 /**
@@ -186,6 +192,7 @@ export async function findStructures(db: Db, filter: StructureListQuery): Promis
       db.raw(`${LOWEST_CONDITION} as lowest_condition`),
       's.rating_of_record_legal_rf',
       's.rating_of_record_inventory_rf',
+      db.raw(`${RERATING_DUE} as rerating_due`),
       db.raw('count(*) over () as matching'),
     )
     .orderByRaw(`${sortExpression} ${descending ? 'desc' : 'asc'} nulls last, s.structure_number`)

@@ -51,6 +51,7 @@ function toFeature(row: StructureListRow): StructureFeature {
       lowestCondition: row.lowest_condition,
       legalRatingFactor: row.rating_of_record_legal_rf,
       designInventoryRatingFactor: row.rating_of_record_inventory_rf,
+      reratingDue: row.rerating_due,
     },
   };
 }
@@ -150,6 +151,7 @@ async function toDetail(db: Database, row: StructureRow): Promise<StructureDetai
             designInventoryRatingFactor: row.rating_of_record_inventory_rf,
             approvedAt: row.rating_of_record_approved_at.toISOString(),
           },
+    reratingDue: row.rerating_due,
     spans: spans.map((span) => ({ id: span.id, spanIndex: span.span_index, lengthM: span.length_m, girderCount: span.girder_count, girderSpacingMm: span.girder_spacing_mm })),
     version: row.version,
     created: { at: row.created_at.toISOString(), by: row.created_by_name },

@@ -42,6 +42,12 @@ export const routes: Routes = [
     loadComponent: () => import('./ratings/span-rating.page').then((m) => m.SpanRatingPage),
   },
   {
+    path: 'reviews',
+    title: 'Ratings to review · Spanledger',
+    canActivate: [allowedTo('approveRatings')],
+    loadComponent: () => import('./ratings/review-queue.page').then((m) => m.ReviewQueuePage),
+  },
+  {
     path: 'my-role',
     title: 'What my role can do · Spanledger',
     canActivate: [signedInGuard],

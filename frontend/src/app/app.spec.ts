@@ -10,6 +10,7 @@ import { App } from './app';
 import { SessionStore } from './session/session.store';
 
 const RATER: SignedInUser = { id: 7, email: 'r@example.org', displayName: 'Priya Halloran', role: 'rater', districts: ['Central District'], admin: false };
+const INSPECTOR: SignedInUser = { id: 3, email: 'i@example.org', displayName: 'Dana Whitcombe', role: 'inspector', districts: ['North District'], admin: false };
 
 describe('App shell', () => {
   async function toolbarText(answer: (server: HttpTestingController) => void): Promise<string[]> {
@@ -31,7 +32,14 @@ describe('App shell', () => {
     expect(rows[0]).toContain('Priya Halloran');
     expect(rows[0]).toContain('Rating engineer · Central District');
     expect(rows[0]).toContain('What my role can do');
+    expect(rows[0]).toContain('Ratings to review');
     expect(rows[0]).not.toContain('Network register');
+  });
+
+  it('leaves the ratings to review out for a role that reviews no ratings', async () => {
+    const rows = await toolbarText((server) => server.expectOne('api/session').flush({ user: INSPECTOR }));
+    expect(rows[0]).toContain('Dana Whitcombe');
+    expect(rows[0]).not.toContain('Ratings to review');
   });
 
   it('offers the units switch to a signed-in user only', async () => {

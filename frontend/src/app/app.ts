@@ -23,6 +23,9 @@ import { UnitsSwitchComponent } from './units/units-switch.component';
           @if (session.can('exportRegister')) {
             <a mat-button routerLink="/register" routerLinkActive="active" data-testid="nav-register">Network register</a>
           }
+          @if (session.can('approveRatings')) {
+            <a mat-button routerLink="/reviews" routerLinkActive="active" data-testid="nav-reviews">Ratings to review</a>
+          }
           <a mat-button routerLink="/my-role" routerLinkActive="active">What my role can do</a>
         </nav>
         <span class="spacer"></span>

@@ -5,6 +5,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatChipListboxHarness } from '@angular/material/chips/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 
 import { MapFilters, NO_FILTERS } from './map-filters';
@@ -54,6 +55,7 @@ describe('MapFiltersComponent', () => {
       ratingBands: ['below-1'],
       conditionAtMost: 0,
       statuses: ['posted', 'closed'],
+      reratingDue: true,
       search: 'walnut',
       ratingBasis: 'design-inventory',
     });
@@ -63,8 +65,15 @@ describe('MapFiltersComponent', () => {
     expect(await (await conditionSelect()).getValueText()).toBe('0');
     expect(await selectedChips(bandChips())).toEqual(['Below 1.00']);
     expect(await selectedChips(statusChips())).toEqual(['Posted', 'Closed']);
+    expect(await (await loader.getHarness(MatCheckboxHarness.with({ selector: '[data-testid="filter-rerating-due"]' }))).isChecked()).toBe(true);
     expect(fixture.nativeElement.textContent).toContain('Rating band (design inventory)');
     expect(asked).toEqual([]);
+  });
+
+  it('asks for only the structures due for re-rating when that is ticked', async () => {
+    await show(NO_FILTERS);
+    await (await loader.getHarness(MatCheckboxHarness.with({ selector: '[data-testid="filter-rerating-due"]' }))).check();
+    expect(asked.at(-1)).toEqual({ ...NO_FILTERS, reratingDue: true });
   });
 
   it('asks for the districts picked from the network list', async () => {
@@ -137,6 +146,7 @@ describe('MapFiltersComponent', () => {
       ratingBands: ['below-1'],
       conditionAtMost: 3,
       statuses: ['closed'],
+      reratingDue: true,
       search: 'walnut',
       ratingBasis: 'design-inventory',
     };

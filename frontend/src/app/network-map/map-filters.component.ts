@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, effect, input, output, si
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatChipsModule } from '@angular/material/chips';
 import { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -60,6 +61,7 @@ function sameList<T>(a: readonly T[], b: readonly T[]): boolean {
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
+    MatCheckboxModule,
     MatChipsModule,
     MatButtonModule,
     MatIconModule,
@@ -83,6 +85,7 @@ export class MapFiltersComponent {
     ratingBands: new FormControl<RatingBandKey[]>([], { nonNullable: true }),
     conditionAtMost: new FormControl<number | null>(null),
     statuses: new FormControl<StructureStatus[]>([], { nonNullable: true }),
+    reratingDue: new FormControl(false, { nonNullable: true }),
   });
 
   protected readonly whileTyping = WHILE_TYPING;
@@ -115,6 +118,7 @@ export class MapFiltersComponent {
       controls.ratingBands.valueChanges,
       controls.conditionAtMost.valueChanges,
       controls.statuses.valueChanges,
+      controls.reratingDue.valueChanges,
     )
       .pipe(takeUntilDestroyed())
       .subscribe(() => this.askForFormFilters());
@@ -138,6 +142,7 @@ export class MapFiltersComponent {
         ratingBands: sameList(shown.ratingBands, filters.ratingBands) ? shown.ratingBands : [...filters.ratingBands],
         conditionAtMost: filters.conditionAtMost,
         statuses: sameList(shown.statuses, filters.statuses) ? shown.statuses : [...filters.statuses],
+        reratingDue: filters.reratingDue,
       },
       { emitEvent: false },
     );
@@ -146,8 +151,8 @@ export class MapFiltersComponent {
 
   private askForFormFilters(): void {
     if (this.form.invalid) return;
-    const { search, districts, ratingBands, conditionAtMost, statuses } = this.form.getRawValue();
-    const next: MapFilters = { districts, ratingBands, conditionAtMost, statuses, search: search.trim(), ratingBasis: this.filters().ratingBasis };
+    const { search, districts, ratingBands, conditionAtMost, statuses, reratingDue } = this.form.getRawValue();
+    const next: MapFilters = { districts, ratingBands, conditionAtMost, statuses, reratingDue, search: search.trim(), ratingBasis: this.filters().ratingBasis };
     if (!sameFilters(next, this.filters())) this.filtersChange.emit(next);
   }
 }

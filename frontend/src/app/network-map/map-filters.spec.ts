@@ -16,6 +16,7 @@ const EVERY_FILTER: MapFilters = {
   ratingBands: ['below-1', 'not-rated'],
   conditionAtMost: 4,
   statuses: ['posted', 'closed'],
+  reratingDue: true,
   search: 'plum creek',
   ratingBasis: 'design-inventory',
 };
@@ -32,6 +33,7 @@ describe('structureQueryOf', () => {
       ratingBand: 'below-1,not-rated',
       ratingBasis: 'design-inventory',
       conditionAtMost: '4',
+      reratingDue: 'true',
       search: 'plum creek',
     });
   });
@@ -73,6 +75,7 @@ describe('filters in the URL', () => {
       ratingBand: null,
       ratingBasis: null,
       conditionAtMost: null,
+      reratingDue: null,
       search: null,
     });
   });

@@ -8,6 +8,8 @@ export interface MapFilters {
   /** Only structures whose lowest condition rating is at most this (0–9); null for any. */
   readonly conditionAtMost: number | null;
   readonly statuses: readonly StructureStatus[];
+  /** Only structures with a span due for re-rating. */
+  readonly reratingDue: boolean;
   /** Part of the structure number or name; '' for none. */
   readonly search: string;
   /** The rating factor of record the markers are coloured by and the rating bands refer to. */
@@ -19,12 +21,13 @@ export const NO_FILTERS: MapFilters = {
   ratingBands: [],
   conditionAtMost: null,
   statuses: [],
+  reratingDue: false,
   search: '',
   ratingBasis: 'legal',
 };
 
 /** The query parameters filters use, in the URL and towards the server alike. */
-const FILTER_PARAMETERS = ['district', 'status', 'ratingBand', 'ratingBasis', 'conditionAtMost', 'search'] as const;
+const FILTER_PARAMETERS = ['district', 'status', 'ratingBand', 'ratingBasis', 'conditionAtMost', 'reratingDue', 'search'] as const;
 type FilterParameter = (typeof FILTER_PARAMETERS)[number];
 
 const query = structureListQuery.shape;
@@ -36,6 +39,7 @@ export function hasActiveFilters(filters: MapFilters): boolean {
     filters.ratingBands.length > 0 ||
     filters.conditionAtMost !== null ||
     filters.statuses.length > 0 ||
+    filters.reratingDue ||
     filters.search !== ''
   );
 }
@@ -56,6 +60,7 @@ export function filtersFromQueryParams(params: ParamMap): MapFilters {
     ratingBands: read('ratingBand', query.ratingBand, NO_FILTERS.ratingBands),
     conditionAtMost: read('conditionAtMost', query.conditionAtMost, NO_FILTERS.conditionAtMost),
     statuses: read('status', query.status, NO_FILTERS.statuses),
+    reratingDue: read('reratingDue', query.reratingDue, NO_FILTERS.reratingDue),
     search: read('search', query.search, NO_FILTERS.search),
     ratingBasis: read('ratingBasis', query.ratingBasis, NO_FILTERS.ratingBasis),
   };
@@ -74,6 +79,7 @@ export function structureQueryOf(filters: MapFilters): Partial<Record<FilterPara
     parameters.ratingBasis = filters.ratingBasis;
   }
   if (filters.conditionAtMost !== null) parameters.conditionAtMost = String(filters.conditionAtMost);
+  if (filters.reratingDue) parameters.reratingDue = 'true';
   const search = filters.search.trim();
   if (search !== '') parameters.search = search;
   return parameters;

@@ -20,6 +20,7 @@ export function structureFeature(
       lowestCondition: 6,
       legalRatingFactor: null,
       designInventoryRatingFactor: null,
+      reratingDue: false,
       ...summary,
     },
   };

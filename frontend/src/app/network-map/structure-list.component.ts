@@ -1,5 +1,8 @@
 import { ChangeDetectionStrategy, Component, ElementRef, afterRenderEffect, computed, inject, input, output } from '@angular/core';
-import { STRUCTURE_STATUS_NAMES, StructureStatus, StructureSummary } from '@spanledger/shared';
+import { STRUCTURE_STATUS_NAMES, RatingBasis, StructureStatus, StructureSummary } from '@spanledger/shared';
+
+import { MarkerLook, markerLook } from './marker-look';
+import { MarkerSymbolComponent } from './marker-symbol.component';
 
 /** One line of the list, ready to show. */
 interface StructureRow {
@@ -11,6 +14,9 @@ interface StructureRow {
   /** The district, and the status when the structure is not simply open. */
   readonly place: string;
   readonly status: StructureStatus;
+  /** The structure's marker as the map draws it, so a row and its marker are seen to be one. */
+  readonly look: MarkerLook;
+  readonly reratingDue: boolean;
 }
 
 /**
@@ -28,6 +34,7 @@ const structureNumberOrder = new Intl.Collator('en', { numeric: true, sensitivit
  */
 @Component({
   selector: 'sl-structure-list',
+  imports: [MarkerSymbolComponent],
   templateUrl: './structure-list.component.html',
   styleUrl: './structure-list.component.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,6 +50,8 @@ export class StructureListComponent {
   /** True when filters narrow what is shown. */
   readonly filtered = input(false);
   readonly selectedId = input<number | null>(null);
+  /** The rating factor of record the markers are coloured by. */
+  readonly ratingBasis = input<RatingBasis>('legal');
   readonly structureSelected = output<number>();
 
   private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
@@ -60,6 +69,8 @@ export class StructureListComponent {
         district: structure.district,
         place: structure.status === 'open' ? structure.district : `${structure.district} · ${STRUCTURE_STATUS_NAMES[structure.status]}`,
         status: structure.status,
+        look: markerLook(structure, this.ratingBasis(), false),
+        reratingDue: structure.reratingDue,
       })),
   );
 

@@ -20,6 +20,7 @@ export function structureDetail(overrides: Partial<StructureDetail> = {}): Struc
     status: 'open',
     notes: 'Joint seals replaced at both abutments.',
     ratingOfRecord: null,
+    reratingDue: false,
     spans: [
       { id: 301, spanIndex: 1, lengthM: 30.48, girderCount: 5, girderSpacingMm: 2438.4 },
       { id: 302, spanIndex: 2, lengthM: 24, girderCount: 5, girderSpacingMm: 2438.4 },
