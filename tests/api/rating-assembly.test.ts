@@ -8,9 +8,9 @@
  * the draws were computed by running the seeds' own functions (`seededRandom`, `demoStructures`,
  * `demoConditions`) in a scratch script, and the rest worked out from the generator code:
  * - structure BV-S-0136 is the 30th of `demoStructures()` (index 29): ADTT 2108. Its conditions
- *   (`demoConditions()`): superstructure 6 and skew 20°. The damage inspection of 2026-11-18 says
- *   superstructure 4, but it is only submitted, and a structure takes an inspection's ratings when
- *   the inspection is accepted, so the file carries 6.
+ *   (`demoConditions()`): superstructure 6 and skew 20°. The damage inspection of 2026-11-18
+ *   (seeds/demo-inspections.ts) says superstructure 4 and is submitted, not yet accepted; its
+ *   findings are applied, so its condition rating goes with them: the file carries 4.
  * - demo-inventory draws 7 numbers per structure; this structure's give 4 spans of 22.0 m, 4 girders
  *   at 2250 mm, an AASHTO Type III I-girder (22 m < 24 m; section from seeds/data/girder-types.json),
  *   f'c 41 MPa, 22 bottom strands as rows r1 (12 at 50 mm) and r2 (10 at 100 mm), fpe 1093 MPa, and
@@ -111,6 +111,8 @@ describe('rating assembly of a seeded damaged girder', () => {
     const [girder] = rating.girders;
 
     expect(girder!.calcFile).toEqual(expectedCalcFile(findingIds));
+    // The record says where the condition rating came from.
+    expect(rating.warnings[0]).toBe("superstructure condition 4 from the inspection of 2026-11-18, submitted and not yet accepted (the structure's accepted rating is 6)");
 
     // The file is complete on its own: the engine reads it and gives the stored output again.
     const parsed = parseRateFile(girder!.calcFile);

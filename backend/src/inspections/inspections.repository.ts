@@ -73,6 +73,19 @@ export async function findInspectionInProgress(db: Db, structureId: number): Pro
   return inspectionsWithNames(db).where('i.structure_id', structureId).whereIn('i.state', ['draft', 'returned']).first();
 }
 
+/**
+ * The superstructure condition of the structure's newest inspection waiting for review, if it
+ * records one: it comes with the findings on the register before its ratings reach the structure.
+ */
+export async function findPendingSuperstructureCondition(db: Db, structureId: number): Promise<{ superstructure: number; inspectedOn: string } | undefined> {
+  const row = await db('inspections')
+    .where({ structure_id: structureId, state: 'submitted' })
+    .whereNotNull('superstructure_condition')
+    .orderBy([{ column: 'inspected_on', order: 'desc' }, { column: 'id', order: 'desc' }])
+    .first('superstructure_condition', db.raw("to_char(inspected_on, 'YYYY-MM-DD') as inspected_on"));
+  return row ? { superstructure: row.superstructure_condition, inspectedOn: row.inspected_on } : undefined;
+}
+
 export type InspectionColumns = Partial<Pick<InspectionRow, 'inspected_on' | 'kind' | 'deck_condition' | 'superstructure_condition' | 'substructure_condition' | 'notes'>>;
 
 export async function insertInspection(trx: Transaction, structureId: number, columns: Required<InspectionColumns>, userId: number): Promise<number> {

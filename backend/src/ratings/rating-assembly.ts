@@ -25,6 +25,8 @@ export interface RatingSources {
   readonly span: SpanRow;
   readonly girders: readonly (StoredGirder & { id: number })[];
   readonly openFindings: readonly FindingRow[];
+  /** The superstructure condition of an inspection submitted and not yet accepted, if any. */
+  readonly pendingCondition: { readonly superstructure: number; readonly inspectedOn: string } | null;
   readonly vehicles: readonly LibraryDefinitionRow[];
   readonly policies: readonly LibraryDefinitionRow[];
 }
@@ -45,6 +47,8 @@ export interface AssembledRating {
   readonly appliedFindings: readonly AppliedFinding[];
   readonly vehicles: readonly { id: string; version: string; name: string; category: string | null }[];
   readonly policy: { readonly id: string; readonly version: string };
+  /** What the rater should know of the assembly itself, e.g. where the condition rating came from. */
+  readonly notes: readonly string[];
 }
 
 const notRatable = (message: string) => new AppError({ code: 'not_ratable', status: 409, message });
@@ -131,12 +135,15 @@ export function findingsAsApplied(openFindings: readonly FindingRow[], girderIds
 /**
  * The rating's calculation files, one per girder (calc-file.md, `rate`): the girder and span as
  * stored, each open finding of the girder not excluded as a damage entry at its place (oldest
- * first), the what-if entries marked `hypothetical`, the structure's superstructure condition and
- * ADTT, the vehicles and the policy inline with the version stored, so the file alone re-runs.
+ * first), the what-if entries marked `hypothetical`, the superstructure condition (of an
+ * inspection waiting for review when there is one, since its findings are applied) and the ADTT,
+ * the vehicles and the policy inline with the version stored, so the file alone re-runs.
  */
 export function assembleRating(sources: RatingSources, run: RatingRun): AssembledRating {
-  const { structure, span } = sources;
-  if (structure.superstructure_condition === null) throw notRatable(`Structure ${structure.structure_number} has no superstructure condition rating: accept an inspection that records one, then rate`);
+  const { structure, span, pendingCondition } = sources;
+  // The findings of a submitted inspection are applied already; its condition rating goes with them.
+  const superstructureCondition = pendingCondition?.superstructure ?? structure.superstructure_condition;
+  if (superstructureCondition === null) throw notRatable(`Structure ${structure.structure_number} has no superstructure condition rating: submit an inspection that records one, then rate`);
   if (structure.adtt === null) throw notRatable(`Structure ${structure.structure_number} has no ADTT: the legal-load factor depends on it; enter it on the structure, then rate`);
   const rated = girdersToRate(sources, run);
   const vehicles = chosenVehicles(sources, run);
@@ -164,7 +171,7 @@ export function assembleRating(sources: RatingSources, run: RatingRun): Assemble
       ...girderCalcFileParts(stored, span, structure.skew_deg),
       damage,
       options: { method: 'strain-compatibility', strandCurve: run.strandCurve, concreteModel: run.concreteModel },
-      condition: { superstructure: structure.superstructure_condition },
+      condition: { superstructure: superstructureCondition },
       traffic: { adtt: structure.adtt },
       vehicles: vehicles.map(vehicleReference),
       policy: policy.definition,
@@ -177,6 +184,9 @@ export function assembleRating(sources: RatingSources, run: RatingRun): Assemble
     appliedFindings,
     vehicles: vehicles.map((row) => ({ id: row.id, version: row.version, name: row.definition.name ?? row.id, category: row.definition.category ?? null })),
     policy: { id: policy.id, version: policy.version },
+    notes: pendingCondition
+      ? [`superstructure condition ${pendingCondition.superstructure} from the inspection of ${pendingCondition.inspectedOn}, submitted and not yet accepted (the structure's accepted rating is ${structure.superstructure_condition ?? 'none'})`]
+      : [],
   };
 }
 

@@ -16,7 +16,7 @@ import { recordAuditEvent } from '../audit/audit-events';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { findStoredGirdersOfSpan } from '../girders/girders.repository';
 import { AppError } from '../http/app-error';
-import { findOpenFindingsOfSpan } from '../inspections/inspections.repository';
+import { findOpenFindingsOfSpan, findPendingSuperstructureCondition } from '../inspections/inspections.repository';
 import { findLatestLibraryDefinitions } from '../library/library.repository';
 import { findSpanById } from '../spans/spans.repository';
 import { findStructureById } from '../structures/structures.repository';
@@ -131,6 +131,7 @@ async function ratingSources(db: Database | Transaction, spanId: number): Promis
     span,
     girders: await findStoredGirdersOfSpan(db, spanId),
     openFindings: await findOpenFindingsOfSpan(db, spanId),
+    pendingCondition: (await findPendingSuperstructureCondition(db, structure.id)) ?? null,
     vehicles: await findLatestLibraryDefinitions(db, 'vehicles'),
     policies: await findLatestLibraryDefinitions(db, 'rating_policies'),
   };
@@ -154,7 +155,7 @@ async function runOf(trx: Transaction, sources: RatingSources, run: RatingRun): 
       vehicles: [...assembled.vehicles],
       lowest_legal_rf: figures.lowestLegalRf,
       lowest_inventory_rf: figures.lowestInventoryRf,
-      warnings: combinedWarnings(rated),
+      warnings: [...assembled.notes, ...combinedWarnings(rated)],
       previous_record_id: ofRecord?.id ?? null,
     },
     girders: rated.map((girder) => ({ girder_id: girder.girderId, girder_number: girder.girderNumber, position: girder.position, calc_file: girder.calcFile, output: girder.output })),
