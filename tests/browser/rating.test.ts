@@ -14,6 +14,8 @@ const appUrl = () => {
 const SOUTH_INSPECTOR = 'bv-staff-1057';
 const SOUTH_RATER = 'bv-staff-2029';
 const NETWORK_MANAGER = 'bv-staff-3002';
+/** The grey of a structure not rated (frontend/src/app/network-map/rating-colour-scale.ts). */
+const NOT_RATED_FILL = '#9ea7ab';
 const TABLET = { width: 820, height: 1180 };
 const DESK = { width: 1366, height: 960 };
 
@@ -43,6 +45,14 @@ describe('rating journey', () => {
     }
   });
   afterAll(() => browser.close());
+
+  /** The structure's row in the map's side list, found by searching its number. */
+  async function mapRow(page: Page) {
+    await page.goto(`${appUrl()}/?search=${encodeURIComponent(structureNumber)}`);
+    const row = page.locator(`[data-testid="structure-list-item"][data-structure-id="${structureId}"]`);
+    await row.waitFor();
+    return row;
+  }
 
   /** The inspector records two lost strands on girder 2 of span 1 and submits. */
   async function inspectorSubmitsLostStrands(): Promise<void> {
@@ -82,7 +92,14 @@ describe('rating journey', () => {
 
     const rater = await browser.newPage({ viewport: DESK });
     const raterErrors = recordPageErrors(rater);
-    await signInThroughProvider(rater, appUrl(), SOUTH_RATER, `/structures/${structureId}`);
+    await signInThroughProvider(rater, appUrl(), SOUTH_RATER, '/');
+    // On the map the structure is grey (not rated) and flagged for a rating.
+    const before = await mapRow(rater);
+    await before.getByTestId('structure-list-due').waitFor();
+    expect(await before.getByTestId('structure-list-symbol').getAttribute('data-fill')).toBe(NOT_RATED_FILL);
+    await saveScreenshot(rater, 'rating-2a-map-before');
+    await rater.goto(`${appUrl()}/structures/${structureId}`);
+    await rater.getByTestId('structure-rerating-due').waitFor();
     await rater.getByTestId('tab-ratings').click();
     await rater.getByTestId('rate-span-1').click();
     await rater.getByTestId('rating-choices').waitFor();
@@ -116,9 +133,12 @@ describe('rating journey', () => {
 
     const manager = await browser.newPage({ viewport: DESK });
     const managerErrors = recordPageErrors(manager);
-    await signInThroughProvider(manager, appUrl(), NETWORK_MANAGER, `/structures/${structureId}`);
-    await manager.getByTestId('tab-ratings').click();
-    await manager.locator(`[data-testid="rating-row"][data-rating-id="${ratingId}"] [data-testid="rating-link"]`).click();
+    await signInThroughProvider(manager, appUrl(), NETWORK_MANAGER, '/');
+    await manager.getByTestId('nav-reviews').click();
+    const waiting = manager.locator(`[data-testid="review-row"][data-rating-id="${ratingId}"]`);
+    await waiting.waitFor();
+    await saveScreenshot(manager, 'rating-5a-manager-review-queue');
+    await waiting.getByTestId('open-rating').click();
     await manager.waitForURL(new RegExp(`/ratings/${ratingId}$`));
     await manager.getByTestId('review-comments').filter({ hasText: 'Two lost strands' }).waitFor();
     await manager.getByTestId('step-comment').fill('Checked against the inspection photos.');
@@ -131,7 +151,20 @@ describe('rating journey', () => {
     await manager.getByTestId('tab-ratings').click();
     await manager.getByTestId('rating-of-record').waitFor();
     expect(await manager.getByTestId('fact-legalRatingFactor').textContent()).toContain(legalText);
+    expect(await manager.getByTestId('structure-rerating-due').count()).toBe(0);
     await saveScreenshot(manager, 'rating-6-structure-rating-of-record');
+
+    // The map colours the structure from its new rating of record, and its flag is gone.
+    const after = await mapRow(manager);
+    await manager.waitForFunction(
+      ([id, grey]) => document.querySelector(`[data-structure-id="${id}"] [data-testid="structure-list-symbol"]`)?.getAttribute('data-fill') !== grey,
+      [String(structureId), NOT_RATED_FILL] as const,
+    );
+    expect(await after.getByTestId('structure-list-due').count()).toBe(0);
+    await after.click();
+    await manager.getByTestId('structure-card').waitFor();
+    expect(await manager.getByTestId('structure-card-due').count()).toBe(0);
+    await saveScreenshot(manager, 'rating-7-map-after');
     expect(managerErrors).toEqual([]);
     await manager.close();
     expect(structureNumber).toMatch(/^BV-S-/);
