@@ -13,7 +13,7 @@ import { DEMO_USERS } from '../scripts/lib/local-identity-provider/demo-users';
  */
 
 /** The demo staff as they appear once they have signed in; added here so the history has its people. */
-async function demoStaff(knex: Knex, subject: string): Promise<SignedInUser> {
+export async function demoStaff(knex: Knex, subject: string): Promise<SignedInUser> {
   const existing = await findUserBySubject(knex, subject);
   if (existing) return toSignedInUser(existing);
   const person = DEMO_USERS.find((user) => user.subject === subject)!;

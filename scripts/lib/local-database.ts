@@ -5,6 +5,7 @@ import { syncReferenceLibrary } from '../../backend/src/library/reference-librar
 import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { seed as seedDemoInspections } from '../../seeds/demo-inspections';
 import { seedDemoPhotos } from '../../seeds/demo-photos';
+import { seed as seedDemoRatings } from '../../seeds/demo-ratings';
 import type { ObjectStorage } from '../../backend/src/photos/object-storage';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
@@ -15,6 +16,7 @@ export const DEMO_DATA_LOAD = 'demo-scenario';
 export const DEMO_INVENTORY_LOAD = 'demo-inventory';
 export const DEMO_CONDITIONS_LOAD = 'demo-conditions';
 export const DEMO_INSPECTIONS_LOAD = 'demo-inspections';
+export const DEMO_RATINGS_LOAD = 'demo-ratings';
 export const DEMO_PHOTOS_LOAD = 'demo-photos';
 
 /** The project-local cluster used by `npm start`: kept between runs, durable defaults. */
@@ -31,6 +33,8 @@ export async function prepareDatabase(db: Database, { loadDemo }: { loadDemo: bo
   if (loadDemo) await runDataLoadOnce(db, DEMO_INVENTORY_LOAD, seedDemoInventory);
   if (loadDemo) await runDataLoadOnce(db, DEMO_CONDITIONS_LOAD, seedDemoConditions);
   if (loadDemo) await runDataLoadOnce(db, DEMO_INSPECTIONS_LOAD, seedDemoInspections);
+  // Ratings read the inspections' accepted findings, so they load after them.
+  if (loadDemo) await runDataLoadOnce(db, DEMO_RATINGS_LOAD, seedDemoRatings);
   return { migrations, demoLoaded };
 }
 

@@ -6,6 +6,7 @@ import { DEMO_DATA_LOAD, loadDemoPhotos, prepareDatabase } from '../../scripts/l
 import { testObjectStorageEnv } from '../support/object-storage-settings';
 import { testSignInEnv } from '../support/sign-in-settings';
 import { DEMO_INSPECTED_STRUCTURES } from '../../seeds/demo-inspections';
+import { DEMO_RATED_STRUCTURES, seed as seedDemoRatings } from '../../seeds/demo-ratings';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
 import { createTestDatabase, type TestDatabase } from '../support/test-database';
 
@@ -54,6 +55,92 @@ describe('the demo scenario', () => {
     await prepareDatabase(testDb.db, { loadDemo: true });
     expect(await testDb.db('inspections').count({ n: '*' })).toEqual([{ n: String(inspections.length) }]);
   }, 60_000);
+
+  describe('its rating records', () => {
+    interface DemoRatingRow {
+      id: number;
+      structure_number: string;
+      span_index: number;
+      state: string;
+      created_by: number;
+      reviewed_by: number | null;
+      lowest_legal_rf: number;
+      lowest_inventory_rf: number;
+      applied_findings: unknown[];
+      review_comments: { step: string; comment: string }[];
+    }
+    const ratingRows = (): Promise<DemoRatingRow[]> =>
+      testDb.db('ratings as r')
+        .join('spans as sp', 'sp.id', 'r.span_id')
+        .join('structures as s', 's.id', 'sp.structure_id')
+        .select('r.id', 's.structure_number', 'sp.span_index', 'r.state', 'r.created_by', 'r.reviewed_by', 'r.lowest_legal_rf', 'r.lowest_inventory_rf', 'r.applied_findings', 'r.review_comments')
+        .orderBy('r.id');
+
+    let ratings: DemoRatingRow[];
+    beforeAll(async () => {
+      await prepareDatabase(testDb.db, { loadDemo: true });
+      ratings = await ratingRows();
+    }, 60_000);
+
+    it('are in several states, on the planned structures', () => {
+      const statesByStructure = new Map<string, Set<string>>();
+      for (const rating of ratings) statesByStructure.set(rating.structure_number, (statesByStructure.get(rating.structure_number) ?? new Set()).add(rating.state));
+      expect(new Map([...statesByStructure].map(([structure, states]) => [structure, [...states]]))).toEqual(new Map([...DEMO_RATED_STRUCTURES].map(([structure, state]) => [structure, [state]])));
+      expect(new Set(ratings.map((rating) => rating.state))).toEqual(new Set(['approved', 'submitted', 'returned', 'draft']));
+      const returned = ratings.find((rating) => rating.state === 'returned')!;
+      expect(returned.review_comments.find((comment) => comment.step === 'returned')?.comment).toMatch(/\w{3}/);
+    });
+
+    it('are reviewed by someone other than the person who ran them', () => {
+      const reviewed = ratings.filter((rating) => rating.state === 'approved' || rating.state === 'returned');
+      expect(reviewed.length).toBeGreaterThan(0);
+      for (const rating of reviewed) {
+        expect(rating.reviewed_by).not.toBeNull();
+        expect(rating.reviewed_by).not.toBe(rating.created_by);
+      }
+    });
+
+    it('apply the damage on the register of every inspected structure', () => {
+      for (const structureNumber of DEMO_INSPECTED_STRUCTURES) {
+        const firstSpan = ratings.filter((rating) => rating.structure_number === structureNumber && rating.span_index === 1);
+        expect(firstSpan.length).toBeGreaterThan(0);
+        for (const rating of firstSpan) expect(rating.applied_findings.length).toBeGreaterThan(0);
+      }
+    });
+
+    it('give every span of a structure with ratings of record one, and the structure the lowest of their factors for the map', async () => {
+      const approved = ratings.filter((rating) => rating.state === 'approved');
+      const structures = await testDb.db('structures').select('id', 'structure_number', 'rating_of_record_legal_rf', 'rating_of_record_inventory_rf', 'rating_of_record_approved_at');
+      const withRecords = structures.filter((structure) => approved.some((rating) => rating.structure_number === structure.structure_number));
+      expect(withRecords.length).toBeGreaterThanOrEqual(8);
+      for (const structure of structures) {
+        const records = approved.filter((rating) => rating.structure_number === structure.structure_number);
+        if (records.length === 0) {
+          expect(structure.rating_of_record_legal_rf).toBeNull();
+          continue;
+        }
+        const spanCount = Number((await testDb.db('spans').where({ structure_id: structure.id }).count({ n: '*' }))[0]!.n);
+        expect(records.map((rating) => rating.span_index).sort((a, b) => a - b)).toEqual(Array.from({ length: spanCount }, (_, index) => index + 1));
+        expect(structure.rating_of_record_legal_rf).toBe(Math.min(...records.map((rating) => rating.lowest_legal_rf)));
+        expect(structure.rating_of_record_inventory_rf).toBe(Math.min(...records.map((rating) => rating.lowest_inventory_rf)));
+        expect(structure.rating_of_record_approved_at).not.toBeNull();
+      }
+    });
+
+    it('leave every South District structure with no inspection unrated, for the journeys to rate', async () => {
+      const uninspectedSouth = await testDb.db('structures')
+        .where({ district: 'South District' })
+        .whereNotExists(testDb.db('inspections').whereRaw('inspections.structure_id = structures.id'))
+        .pluck('structure_number');
+      expect(uninspectedSouth.length).toBeGreaterThan(0);
+      expect(ratings.filter((rating) => uninspectedSouth.includes(rating.structure_number))).toEqual([]);
+    });
+
+    it('are not made twice: a structure that has ratings is passed over', async () => {
+      await seedDemoRatings(testDb.db);
+      expect((await ratingRows()).map((rating) => rating.id)).toEqual(ratings.map((rating) => rating.id));
+    });
+  });
 
   it('adds a drawn picture to each demo finding of damage, once, into the photo store', async () => {
     const storage = new ObjectStorage(loadConfig({ ...(await testSignInEnv(9)), ...(await testObjectStorageEnv()) }).objectStorage, createLogger('silent'));
