@@ -4,6 +4,7 @@ export * from './inventory';
 export * from './girder-record';
 export * from './inspections';
 export * from './ratings';
+export * from './imports';
 export * from './client-config';
 export * from './access';
 export * from './units';

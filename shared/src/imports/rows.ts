@@ -1,0 +1,206 @@
+import type { z } from 'zod';
+import { BODY_CHECKS, type AssembledBody, type ImportBodies } from './bodies';
+import { cellText, isEmptyCell, readCell, type RawCell } from './cells';
+import { IMPORT_TEMPLATES, type ImportColumn, type ImportTemplate, type ImportTemplateName } from './columns';
+
+/**
+ * Turning one parsed row of an import file into the API's body: read each cell as its column's
+ * type, convert US customary values to SI, assemble the body and let the API's schema judge it.
+ * Every problem names the sheet, the row, the column as the file spells it and the cell's value.
+ */
+
+/** One bad cell, row or header, as the preview and the error report list it. */
+export interface ImportProblem {
+  readonly sheet: string;
+  /** The row number in the file (the header row for header problems). */
+  readonly row: number;
+  /** The column as it appears in the file; several joined by ", " for a key; "" for the row as a whole. */
+  readonly column: string;
+  readonly value: string | number | boolean | null;
+  readonly message: string;
+}
+
+/** A row as the streaming CSV and XLSX readers yield it. */
+export interface ParsedRow {
+  readonly sheet: string;
+  readonly rowNumber: number;
+  readonly cells: Readonly<Record<string, RawCell>>;
+}
+
+interface HeaderUse {
+  readonly column: ImportColumn;
+  /** Given under the US customary header, so converted. */
+  readonly inUsUnits: boolean;
+}
+
+/** What a sheet's header row says: which column each header is, and what is wrong with the headers. */
+export interface HeaderReading {
+  readonly template: ImportTemplate;
+  readonly sheet: string;
+  /** By the header exactly as the file spells it. */
+  readonly uses: ReadonlyMap<string, HeaderUse>;
+  /** The file's header for each column given, by the column's SI header. */
+  readonly fileHeaders: ReadonlyMap<string, string>;
+  readonly problems: readonly ImportProblem[];
+}
+
+const normalised = (header: string) => header.trim().toLowerCase();
+
+/** Every header a template accepts, normalised, with the column and unit system it stands for. */
+function acceptedHeaders(template: ImportTemplate): Map<string, HeaderUse> {
+  const accepted = new Map<string, HeaderUse>();
+  for (const column of template.columns) {
+    accepted.set(column.header, { column, inUsUnits: false });
+    if (column.us !== null) accepted.set(column.us.header, { column, inUsUnits: true });
+  }
+  return accepted;
+}
+
+/**
+ * Reads a sheet's header row. An unknown header, a header given twice and both unit systems of
+ * one column are each a problem at that header; the required columns missing are one problem
+ * for the sheet. Blank headers (trailing empty columns of a spreadsheet) are passed over.
+ */
+export function readHeaders(templateName: ImportTemplateName, sheet: string, headers: readonly string[], headerRowNumber = 1): HeaderReading {
+  const template = IMPORT_TEMPLATES[templateName];
+  const accepted = acceptedHeaders(template);
+  const uses = new Map<string, HeaderUse>();
+  const fileHeaders = new Map<string, string>();
+  const problems: ImportProblem[] = [];
+  const problem = (header: string, message: string) => problems.push({ sheet, row: headerRowNumber, column: header, value: header, message });
+
+  for (const header of headers) {
+    if (header.trim() === '') continue;
+    const use = accepted.get(normalised(header));
+    if (use === undefined) {
+      problem(header, `unknown column for ${template.title.toLowerCase()}; data-import/README.md lists the columns`);
+      continue;
+    }
+    const earlier = fileHeaders.get(use.column.header);
+    if (earlier !== undefined) {
+      problem(header, normalised(earlier) === normalised(header) ? 'the column appears twice' : `give ${earlier} or ${header}, not both`);
+      continue;
+    }
+    uses.set(header, use);
+    fileHeaders.set(use.column.header, header);
+  }
+
+  const missing = template.columns.filter((column) => column.required && !fileHeaders.has(column.header));
+  if (missing.length > 0) {
+    const names = missing.map((column) => (column.us === null ? column.header : `${column.header} (or ${column.us.header})`));
+    problems.push({ sheet, row: headerRowNumber, column: missing.map((column) => column.header).join(', '), value: null, message: `required columns missing: ${names.join(', ')}` });
+  }
+  return { template, sheet, uses, fileHeaders, problems };
+}
+
+export type RowConversion<T extends ImportTemplateName> =
+  | { readonly ok: true; readonly row: ConvertedRow<T> }
+  | { readonly ok: false; readonly problems: readonly ImportProblem[] };
+
+/** A row that passed its template's checks, with its body and its key within the file. */
+export interface ConvertedRow<T extends ImportTemplateName> {
+  readonly template: T;
+  readonly sheet: string;
+  readonly rowNumber: number;
+  readonly body: ImportBodies[T];
+  /** The file's headers of the key columns, for naming them in a problem. */
+  readonly keyColumns: string;
+}
+
+function setAt(target: Record<string, unknown>, path: readonly string[], value: unknown): void {
+  let node = target;
+  for (const key of path.slice(0, -1)) node = (node[key] ??= {}) as Record<string, unknown>;
+  node[path.at(-1)!] = value;
+}
+
+const reportValue = (raw: RawCell): ImportProblem['value'] => (raw instanceof Date ? cellText(raw) : (raw ?? null));
+
+/**
+ * Converts one parsed row into its template's body, checked with the API's schema. Cells under
+ * unknown or doubled headers are left out (their header is already a problem). A sheet missing
+ * a required column converts no row: `readHeaders` reported it once, and every row is refused
+ * with no problems of its own rather than one on every row.
+ */
+export function convertRow<T extends ImportTemplateName>(templateName: T, headers: HeaderReading, parsed: ParsedRow): RowConversion<T> {
+  const { template } = headers;
+  if (template.columns.some((column) => column.required && !headers.fileHeaders.has(column.header))) return { ok: false, problems: [] };
+  const problems: ImportProblem[] = [];
+  const problem = (column: string, raw: RawCell, message: string) =>
+    problems.push({ sheet: parsed.sheet, row: parsed.rowNumber, column, value: reportValue(raw), message });
+  const body: Record<string, unknown> = {};
+
+  for (const column of template.columns) {
+    const fileHeader = headers.fileHeaders.get(column.header);
+    if (fileHeader === undefined) continue;
+    const raw = parsed.cells[fileHeader];
+    if (isEmptyCell(raw)) {
+      if (column.required) problem(fileHeader, raw, 'is required');
+      continue;
+    }
+    const reading = readCell(column, raw, headers.uses.get(fileHeader)!.inUsUnits);
+    if (reading.ok) setAt(body, column.path, reading.value);
+    else problem(fileHeader, raw, reading.message);
+  }
+  if (templateName === 'girders') problems.push(...sectionWithoutShape(headers, parsed, body));
+  if (problems.length > 0) return { ok: false, problems };
+
+  const check = BODY_CHECKS[templateName];
+  check.putStandIns?.(body);
+  const result = check.schema.safeParse(body);
+  if (!result.success) return { ok: false, problems: schemaProblems(headers, parsed, result.error) };
+  const checked = result.data as AssembledBody;
+  check.takeStandInsOut?.(checked);
+  const keyColumns = template.keyHeaders.map((header) => headers.fileHeaders.get(header) ?? header).join(', ');
+  return { ok: true, row: { template: templateName, sheet: parsed.sheet, rowNumber: parsed.rowNumber, body: checked as ImportBodies[T], keyColumns } };
+}
+
+/** Custom-section dimensions with no shape would be dropped silently by the schema's shape choice; say so instead. */
+function sectionWithoutShape(headers: HeaderReading, parsed: ParsedRow, body: AssembledBody): ImportProblem[] {
+  const section = body.record?.['customSection'] as Record<string, unknown> | undefined;
+  if (section === undefined || section['shape'] !== undefined) return [];
+  const shapeHeader = headers.fileHeaders.get('section_shape') ?? 'section_shape';
+  return [{ sheet: parsed.sheet, row: parsed.rowNumber, column: shapeHeader, value: null, message: 'section dimensions are given: choose the section shape they belong to (rectangle, tee or i-girder)' }];
+}
+
+type SchemaIssue = z.core.$ZodIssue;
+
+const startsWith = (path: readonly PropertyKey[], prefix: readonly PropertyKey[]) => prefix.every((key, index) => path[index] === key);
+
+/**
+ * The column a schema's complaint is about: the one at its path, else the nearest column above
+ * it (a list item belongs to its list's column), else the first column inside it (a missing part).
+ */
+function columnAt(template: ImportTemplate, path: readonly PropertyKey[]): ImportColumn | null {
+  const exact = template.columns.find((column) => column.path.length === path.length && startsWith(path, column.path));
+  if (exact) return exact;
+  const above = template.columns.filter((column) => startsWith(path, column.path)).sort((a, b) => b.path.length - a.path.length)[0];
+  return above ?? template.columns.find((column) => startsWith(column.path, path)) ?? null;
+}
+
+/** A schema's complaint, worded for someone filling a spreadsheet. */
+function wording(issue: SchemaIssue): string {
+  if (issue.code === 'invalid_type' && /received undefined/.test(issue.message)) return 'is needed here, but the cell is empty';
+  return issue.message;
+}
+
+function schemaProblems(headers: HeaderReading, parsed: ParsedRow, error: z.ZodError): ImportProblem[] {
+  const problems: ImportProblem[] = [];
+  for (const issue of error.issues) {
+    // A key the schema does not know: each column of this shape that has no place in it.
+    const paths = issue.code === 'unrecognized_keys' ? issue.keys.map((key) => [...issue.path, key]) : [issue.path];
+    for (const path of paths) {
+      const column = columnAt(headers.template, path);
+      const fileHeader = column === null ? undefined : headers.fileHeaders.get(column.header);
+      const inUsUnits = fileHeader !== undefined && headers.uses.get(fileHeader)!.inUsUnits;
+      const message = issue.code === 'unrecognized_keys' ? 'this section shape does not use it; leave it empty' : wording(issue);
+      problems.push({
+        sheet: parsed.sheet,
+        row: parsed.rowNumber,
+        column: fileHeader ?? column?.header ?? '',
+        value: fileHeader === undefined ? null : reportValue(parsed.cells[fileHeader]),
+        message: inUsUnits && column?.unit ? `${message} (checked after conversion to ${column.unit.label})` : message,
+      });
+    }
+  }
+  return problems;
+}
