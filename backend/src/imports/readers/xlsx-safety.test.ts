@@ -1,9 +1,10 @@
 import ExcelJS from 'exceljs';
 import { readAllRows, importFailure, useTempFolder } from './test-support/temp-files';
 import { minimalWorkbookParts, writeSampleByHand, writeSampleWithExcelJs } from './test-support/workbooks';
-import { ZipFileWriter } from './test-support/zip-writer';
+import { ZipFileWriter, writeDeflatedZeros } from './test-support/zip-writer';
 import { checkXlsxSafety } from './xlsx-safety';
 import fs from 'node:fs';
+import zlib from 'node:zlib';
 
 const temp = useTempFolder();
 const MB = 1024 * 1024;
@@ -48,6 +49,76 @@ describe('checkXlsxSafety', () => {
     expect(rssAfter - rssBefore).toBeLessThan(64 * MB);
     openWorkbook.mockRestore();
   }, 60_000);
+
+  it('refuses a part that declares 1 KB but inflates to 1 GB, before exceljs opens it, in bounded memory', async () => {
+    const payload = temp.file('lying-zeros.deflate');
+    const file = temp.file('lying-bomb.xlsx');
+    const truth = await writeDeflatedZeros(payload, GB);
+    const zip = await startWorkbookZip(file);
+    // The true CRC, so that only the size lies: the refusal must come from counting, not from the checksum.
+    await zip.addDeflatedFile('xl/worksheets/sheet1.xml', payload, { crc: truth.crc, uncompressedSize: 1024 });
+    await zip.finish();
+    const openWorkbook = jest.spyOn(ExcelJS.stream.xlsx, 'WorkbookReader');
+    const rssBefore = process.memoryUsage().rss;
+
+    const error = await importFailure(readAllRows(file));
+
+    const rssAfter = process.memoryUsage().rss;
+    console.log(`zip declaring 1 KB, holding 1 GB (${fs.statSync(file).size} bytes) refused; rss ${Math.round(rssBefore / MB)} MB → ${Math.round(rssAfter / MB)} MB`);
+    expect(error.code).toBe('zip_bomb');
+    expect(openWorkbook).not.toHaveBeenCalled();
+    // Inflating the sheet in full would take 1 GB; the counter keeps none of it and stops after the first kilobytes.
+    expect(rssAfter - rssBefore).toBeLessThan(64 * MB);
+    openWorkbook.mockRestore();
+  }, 120_000);
+
+  it.each([
+    ['deflated', true],
+    ['stored', false],
+  ])('refuses a %s part whose checksum does not match its content', async (_method, deflate) => {
+    const file = temp.file('wrong-crc.xlsx');
+    const sheet = minimalWorkbookParts('').sheet;
+    const zip = await startWorkbookZip(file);
+    await zip.addPart('xl/worksheets/sheet1.xml', sheet, { deflate, declaredCrc: (zlib.crc32(sheet) ^ 1) >>> 0 });
+    await zip.finish();
+    const error = await importFailure(checkXlsxSafety(file));
+    expect(error).toMatchObject({ code: 'corrupt_file' });
+    expect(error.message).toContain('checksum');
+  });
+
+  it('refuses a part that unpacks to fewer bytes than it declares', async () => {
+    const file = temp.file('short.xlsx');
+    const sheet = minimalWorkbookParts('').sheet;
+    const zip = await startWorkbookZip(file);
+    await zip.addPart('xl/worksheets/sheet1.xml', sheet, { declaredUncompressedSize: Buffer.byteLength(sheet) + 1 });
+    await zip.finish();
+    const error = await importFailure(checkXlsxSafety(file));
+    expect(error).toMatchObject({ code: 'corrupt_file' });
+    expect(error.message).toContain('fewer bytes');
+  });
+
+  it('refuses a part with bytes after the end of its deflate stream', async () => {
+    const file = temp.file('trailing.xlsx');
+    const zip = await startWorkbookZip(file);
+    await zip.addPart('xl/worksheets/sheet1.xml', minimalWorkbookParts('').sheet, { trailingBytes: Buffer.from('unchecked') });
+    await zip.finish();
+    const error = await importFailure(checkXlsxSafety(file));
+    expect(error).toMatchObject({ code: 'corrupt_file' });
+    expect(error.message).toContain('after its compressed data');
+  });
+
+  it('refuses a part whose deflate data is damaged', async () => {
+    const file = temp.file('damaged.xlsx');
+    await writeSampleByHand(file);
+    const bytes = fs.readFileSync(file);
+    // Block type 3 is reserved in deflate (RFC 1951, 3.2.3): the first block of the first part can no longer be read.
+    const firstDataAt = 30 + bytes.readUInt16LE(26) + bytes.readUInt16LE(28);
+    bytes[firstDataAt] = bytes[firstDataAt]! | 0b110;
+    fs.writeFileSync(file, bytes);
+    const error = await importFailure(checkXlsxSafety(file));
+    expect(error).toMatchObject({ code: 'corrupt_file' });
+    expect(error.message).toContain('cannot be unpacked');
+  });
 
   it('refuses a workbook whose parts unpack past the size cap', async () => {
     const file = temp.file('large.xlsx');

@@ -2,6 +2,7 @@ import { open } from 'node:fs/promises';
 import type { FileHandle } from 'node:fs/promises';
 import { ImportFileError } from './import-file-error';
 import { readBytes, readZipDirectory, type ZipDirectory, type ZipEntry } from './zip-directory';
+import { checkEntriesInflateAsDeclared, type LocatedZipEntry } from './zip-inflate-check';
 
 export interface XlsxSafetyLimits {
   /** Sum of every entry's declared uncompressed size. */
@@ -38,17 +39,25 @@ const DATA_DESCRIPTOR_LENGTHS = new Set([12, 16, 20, 24]);
 
 /**
  * Refuses an XLSX whose zip structure could exhaust memory, disk or time when opened, or that hides
- * entries: reads only the central directory and the local headers, never inflates anything.
- * Throws `ImportFileError`; resolves when the file may be handed to the spreadsheet reader.
+ * entries. First the central directory and the local headers are read and their declared sizes
+ * checked against the limits; only then is each entry inflated, into a counter that keeps nothing, to
+ * prove it holds what it declares. Throws `ImportFileError`; resolves when the file may be handed to
+ * the spreadsheet reader.
  */
 export async function checkXlsxSafety(filePath: string, limits: Partial<XlsxSafetyLimits> = {}): Promise<void> {
   const chosen = { ...DEFAULT_XLSX_SAFETY_LIMITS, ...limits };
+  const entries = await checkZipStructure(filePath, chosen);
+  await checkEntriesInflateAsDeclared(filePath, entries);
+}
+
+/** The checks that read only the directory and the local headers; returns where each entry's data starts. */
+async function checkZipStructure(filePath: string, limits: XlsxSafetyLimits): Promise<LocatedZipEntry[]> {
   const file = await open(filePath, 'r');
   try {
     const { size } = await file.stat();
     const directory = await readZipDirectory(file, size);
-    checkEntries(directory.entries, chosen);
-    await checkLocalHeadersMatch(file, directory);
+    checkEntries(directory.entries, limits);
+    return await checkLocalHeadersMatch(file, directory);
   } finally {
     await file.close();
   }
@@ -116,12 +125,15 @@ function escapesArchive(name: string): boolean {
  * directory checked above. So every local header must agree with its directory entry and the entries
  * must sit back to back from byte 0 to the directory: nothing unchecked can hide between them.
  */
-async function checkLocalHeadersMatch(file: FileHandle, directory: ZipDirectory): Promise<void> {
+async function checkLocalHeadersMatch(file: FileHandle, directory: ZipDirectory): Promise<LocatedZipEntry[]> {
   const byOffset = [...directory.entries].sort((a, b) => a.localHeaderOffset - b.localHeaderOffset);
+  const located: LocatedZipEntry[] = [];
   let expectedOffset = 0;
   for (const [index, entry] of byOffset.entries()) {
     if (entry.localHeaderOffset !== expectedOffset) throw hiddenData();
-    const dataEnd = await readLocalHeaderEnd(file, entry) + entry.compressedSize;
+    const dataStart = await readLocalHeaderEnd(file, entry);
+    located.push({ entry, dataStart });
+    const dataEnd = dataStart + entry.compressedSize;
     const nextOffset = byOffset[index + 1]?.localHeaderOffset ?? directory.directoryOffset;
     const gap = nextOffset - dataEnd;
     const gapAllowed = entry.flags & FLAG_DATA_DESCRIPTOR ? DATA_DESCRIPTOR_LENGTHS.has(gap) : gap === 0;
@@ -129,6 +141,7 @@ async function checkLocalHeadersMatch(file: FileHandle, directory: ZipDirectory)
     expectedOffset = nextOffset;
   }
   if (expectedOffset !== directory.directoryOffset) throw hiddenData();
+  return located;
 }
 
 /** Checks one local header against its directory entry; returns where the entry's data starts. */

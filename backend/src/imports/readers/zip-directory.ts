@@ -24,6 +24,8 @@ export interface ZipEntry {
   readonly flags: number;
   /** 0 stored, 8 deflated. */
   readonly compressionMethod: number;
+  /** CRC-32 of the uncompressed bytes (APPNOTE 4.4.7), as an unsigned 32-bit number. */
+  readonly crc32: number;
   readonly compressedSize: number;
   readonly uncompressedSize: number;
   readonly localHeaderOffset: number;
@@ -122,6 +124,7 @@ function parseEntries(directory: Buffer, entryCount: number): ZipEntry[] {
       name: directory.toString('utf8', nameStart, extraStart),
       flags: directory.readUInt16LE(at + 8),
       compressionMethod: directory.readUInt16LE(at + 10),
+      crc32: directory.readUInt32LE(at + 16),
       ...sizes,
     });
     at = next;

@@ -1,4 +1,5 @@
-import { createWriteStream, type WriteStream } from 'node:fs';
+import { createReadStream, createWriteStream, type WriteStream } from 'node:fs';
+import { stat } from 'node:fs/promises';
 import { once } from 'node:events';
 import zlib from 'node:zlib';
 
@@ -14,6 +15,17 @@ export interface ZipPartOptions {
   readonly deflate?: boolean;
   /** Extra general-purpose flags, e.g. 0x0001 to mark the entry encrypted. */
   readonly flags?: number;
+  /** What the headers claim instead of the truth, for a part that lies about its content. */
+  readonly declaredUncompressedSize?: number;
+  readonly declaredCrc?: number;
+  /** Bytes written after the part's compressed data and counted in its compressed size. */
+  readonly trailingBytes?: Buffer;
+}
+
+/** What a zip's headers say about a part's uncompressed content. */
+export interface DeclaredContent {
+  readonly crc: number;
+  readonly uncompressedSize: number;
 }
 
 interface WrittenEntry {
@@ -39,14 +51,15 @@ export class ZipFileWriter {
   async addPart(name: string, data: Buffer | string, options: ZipPartOptions = {}): Promise<void> {
     const raw = Buffer.isBuffer(data) ? data : Buffer.from(data, 'utf8');
     const method = options.deflate === false ? 0 : 8;
-    const stored = method === 8 ? zlib.deflateRawSync(raw) : raw;
+    const compressed = method === 8 ? zlib.deflateRawSync(raw) : raw;
+    const stored = Buffer.concat([compressed, options.trailingBytes ?? Buffer.alloc(0)]);
     const entry = {
       name: Buffer.from(name, 'utf8'),
       flags: options.flags ?? 0,
       method,
-      crc: zlib.crc32(raw),
+      crc: options.declaredCrc ?? zlib.crc32(raw),
       compressedSize: stored.length,
-      uncompressedSize: raw.length,
+      uncompressedSize: options.declaredUncompressedSize ?? raw.length,
       offset: this.offset,
     };
     await this.write(localHeader(entry));
@@ -58,23 +71,7 @@ export class ZipFileWriter {
   async addDeflatedZeros(name: string, byteCount: number): Promise<void> {
     const start = { name: Buffer.from(name, 'utf8'), flags: FLAG_DATA_DESCRIPTOR, method: 8, offset: this.offset };
     await this.write(localHeader({ ...start, crc: 0, compressedSize: 0, uncompressedSize: 0 }));
-    const deflate = zlib.createDeflateRaw({ level: 9 });
-    let compressedSize = 0;
-    const copied = (async () => {
-      for await (const chunk of deflate) {
-        compressedSize += (chunk as Buffer).length;
-        await this.write(chunk as Buffer);
-      }
-    })();
-    const zeros = Buffer.alloc(1024 * 1024);
-    let crc = 0;
-    for (let written = 0; written < byteCount; written += zeros.length) {
-      const chunk = zeros.subarray(0, Math.min(zeros.length, byteCount - written));
-      crc = zlib.crc32(chunk, crc);
-      if (!deflate.write(chunk)) await once(deflate, 'drain');
-    }
-    deflate.end();
-    await copied;
+    const { crc, compressedSize } = await deflateZeros(byteCount, (chunk) => this.write(chunk));
     const entry = { ...start, crc, compressedSize, uncompressedSize: byteCount };
     const descriptor = Buffer.alloc(16);
     descriptor.writeUInt32LE(0x08074b50, 0);
@@ -82,6 +79,18 @@ export class ZipFileWriter {
     descriptor.writeUInt32LE(compressedSize, 8);
     descriptor.writeUInt32LE(byteCount, 12);
     await this.write(descriptor);
+    this.entries.push(entry);
+  }
+
+  /**
+   * Adds a part whose raw-deflated bytes are already in `deflatedPath`, with sizes in the local header
+   * and the content `declared` (true or not) in both headers; the bytes are copied, never held.
+   */
+  async addDeflatedFile(name: string, deflatedPath: string, declared: DeclaredContent): Promise<void> {
+    const { size: compressedSize } = await stat(deflatedPath);
+    const entry = { name: Buffer.from(name, 'utf8'), flags: 0, method: 8, ...declared, compressedSize, offset: this.offset };
+    await this.write(localHeader(entry));
+    for await (const chunk of createReadStream(deflatedPath)) await this.write(chunk as Buffer);
     this.entries.push(entry);
   }
 
@@ -104,6 +113,42 @@ export class ZipFileWriter {
     this.offset += bytes.length;
     if (!this.out.write(bytes)) await once(this.out, 'drain');
   }
+}
+
+/** Raw-deflates `byteCount` zeros into `filePath` as a stream, so a 1 GB payload costs no memory; returns what they are. */
+export async function writeDeflatedZeros(filePath: string, byteCount: number): Promise<DeclaredContent> {
+  const out = createWriteStream(filePath);
+  const { crc } = await deflateZeros(byteCount, async (chunk) => {
+    if (!out.write(chunk)) await once(out, 'drain');
+  });
+  out.end();
+  await once(out, 'close');
+  return { crc, uncompressedSize: byteCount };
+}
+
+/** Streams `byteCount` zeros through raw deflate, handing each compressed chunk to `onChunk` in order. */
+async function deflateZeros(
+  byteCount: number,
+  onChunk: (chunk: Buffer) => Promise<void>,
+): Promise<{ crc: number; compressedSize: number }> {
+  const deflate = zlib.createDeflateRaw({ level: 9 });
+  let compressedSize = 0;
+  const copied = (async () => {
+    for await (const chunk of deflate) {
+      compressedSize += (chunk as Buffer).length;
+      await onChunk(chunk as Buffer);
+    }
+  })();
+  const zeros = Buffer.alloc(1024 * 1024);
+  let crc = 0;
+  for (let written = 0; written < byteCount; written += zeros.length) {
+    const chunk = zeros.subarray(0, Math.min(zeros.length, byteCount - written));
+    crc = zlib.crc32(chunk, crc);
+    if (!deflate.write(chunk)) await once(deflate, 'drain');
+  }
+  deflate.end();
+  await copied;
+  return { crc, compressedSize };
 }
 
 function localHeader(entry: WrittenEntry): Buffer {
