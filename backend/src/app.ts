@@ -23,6 +23,7 @@ import { girdersRouter } from './girders/girders.router';
 import { libraryRouter } from './library/library.router';
 import { inspectionsRouter } from './inspections/inspections.router';
 import { ratingsRouter } from './ratings/ratings.router';
+import { importsRouter } from './imports/imports.router';
 import { alertsRouter } from './alerts/alerts.router';
 import { ObjectStorage } from './photos/object-storage';
 import { photosRouter } from './photos/photos.router';
@@ -67,6 +68,7 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   const photoStorage = new ObjectStorage(config.objectStorage, logger);
   api.use(inspectionsRouter(db, photoStorage));
   api.use(ratingsRouter(db));
+  api.use(importsRouter(db, config.importSizeLimitBytes));
   api.use(alertsRouter(db));
   api.use(photosRouter({ db, storage: photoStorage, sizeLimitBytes: config.photoSizeLimitBytes }));
   api.use(networkRegisterRouter(db));

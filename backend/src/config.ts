@@ -75,6 +75,13 @@ const configSchema = z.object({
     .min(1024, 'must be at least 1024')
     .max(100 * 1024 * 1024, 'must be at most 104857600 (100 MB)')
     .default(10 * 1024 * 1024),
+  /** Largest spreadsheet an import upload accepts; it is written to a temporary file, never held whole in memory. */
+  IMPORT_MAX_BYTES: z.coerce
+    .number()
+    .int('must be a whole number of bytes')
+    .min(1024, 'must be at least 1024')
+    .max(1024 * 1024 * 1024, 'must be at most 1073741824 (1 GB)')
+    .default(50 * 1024 * 1024),
 });
 
 /** Names of the assertion attributes that carry each part of a user. */
@@ -127,6 +134,7 @@ export interface AppConfig {
   readonly saml: SamlConfig;
   readonly objectStorage: ObjectStorageConfig;
   readonly photoSizeLimitBytes: number;
+  readonly importSizeLimitBytes: number;
 }
 
 export class ConfigError extends Error {}
@@ -221,5 +229,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       forcePathStyle: c.S3_FORCE_PATH_STYLE ?? c.S3_ENDPOINT !== undefined,
     },
     photoSizeLimitBytes: c.PHOTO_MAX_BYTES,
+    importSizeLimitBytes: c.IMPORT_MAX_BYTES,
   };
 }

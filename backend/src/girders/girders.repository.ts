@@ -146,14 +146,13 @@ export async function findStoredGirdersOfSpan(db: Database | Transaction, spanId
   }));
 }
 
-export async function findGirderById(db: Database | Transaction, id: number, { forUpdate = false } = {}): Promise<GirderRow | undefined> {
-  const query = db({ g: 'girders' })
+function girdersWithPlace(db: Database | Transaction) {
+  return db({ g: 'girders' })
     .join({ sp: 'spans' }, 'sp.id', 'g.span_id')
     .join({ s: 'structures' }, 's.id', 'sp.structure_id')
     .leftJoin({ t: 'girder_types' }, 't.id', 'g.girder_type_id')
     .leftJoin({ u: 'users' }, 'u.id', 'g.updated_by')
-    .where('g.id', id)
-    .first(
+    .select(
       'g.*',
       'sp.span_index',
       'sp.structure_id',
@@ -163,8 +162,27 @@ export async function findGirderById(db: Database | Transaction, id: number, { f
       't.section as type_section',
       'u.display_name as updated_by_name',
     );
+}
+
+export async function findGirderById(db: Database | Transaction, id: number, { forUpdate = false } = {}): Promise<GirderRow | undefined> {
+  const query = girdersWithPlace(db).where('g.id', id).first();
   if (forUpdate) query.forUpdate('g');
   return query;
+}
+
+/** The girders of these spans, by span and number. */
+export async function findGirdersOfSpans(db: Database | Transaction, spanIds: readonly number[]): Promise<GirderRow[]> {
+  if (spanIds.length === 0) return [];
+  return girdersWithPlace(db).whereIn('g.span_id', spanIds).orderBy(['g.span_id', 'g.girder_number']);
+}
+
+/** The strand rows of these girders in order, by girder id. */
+export async function findStrandRowsOfGirders(db: Database | Transaction, girderIds: readonly number[]): Promise<Map<number, StrandRowRecord[]>> {
+  const byGirder = new Map<number, StrandRowRecord[]>(girderIds.map((id) => [id, []]));
+  if (girderIds.length === 0) return byGirder;
+  const rows: (StrandRowRecord & { girder_id: number })[] = await db('strand_rows').whereIn('girder_id', girderIds).orderBy(['girder_id', 'row_order']).select('girder_id', ...STRAND_ROW_COLUMNS);
+  for (const { girder_id: girderId, ...row } of rows) byGirder.get(girderId)!.push(row);
+  return byGirder;
 }
 
 export async function findStrandRows(db: Database | Transaction, girderId: number): Promise<StrandRowRecord[]> {

@@ -40,6 +40,12 @@ export async function findSpansOfStructure(db: Db, structureId: number): Promise
   return spansWithStamps(db).where('sp.structure_id', structureId).orderBy('sp.span_index');
 }
 
+/** The spans of these structures, by structure and index. */
+export async function findSpansOfStructures(db: Db, structureIds: readonly number[]): Promise<SpanRow[]> {
+  if (structureIds.length === 0) return [];
+  return spansWithStamps(db).whereIn('sp.structure_id', structureIds).orderBy(['sp.structure_id', 'sp.span_index']);
+}
+
 export async function findSpanById(db: Db, id: number, { forUpdate = false } = {}): Promise<SpanRow | undefined> {
   const query = spansWithStamps(db).where('sp.id', id).first();
   if (forUpdate) query.forUpdate('sp');

@@ -46,7 +46,8 @@ export function toSpanDetail(row: SpanRow): SpanDetail {
 }
 
 /** The fields a change may touch, as the API names them, from the stored row. */
-function editableFields(row: SpanRow): Record<keyof SpanChangeFields, unknown> {
+/** A stored span's fields as its change body names them. */
+export function editableFields(row: SpanRow): Record<keyof SpanChangeFields, unknown> {
   const detail = toSpanDetail(row);
   return Object.fromEntries(Object.keys(COLUMN_OF).map((field) => [field, detail[field as keyof SpanDetail]])) as Record<keyof SpanChangeFields, unknown>;
 }

@@ -209,6 +209,12 @@ export async function findAllStructures(db: Db): Promise<StructureRow[]> {
   return selectStructureColumns(db, structuresWithStamps(db)).orderBy('s.structure_number');
 }
 
+/** The structures with these owner's numbers, as `findStructureById` reads each. */
+export async function findStructuresByNumbers(db: Db, structureNumbers: readonly string[]): Promise<StructureRow[]> {
+  if (structureNumbers.length === 0) return [];
+  return selectStructureColumns(db, structuresWithStamps(db)).whereIn('s.structure_number', structureNumbers);
+}
+
 export async function findStructureById(db: Db, id: number, { forUpdate = false } = {}): Promise<StructureRow | undefined> {
   const query = selectStructureColumns(db, structuresWithStamps(db)).where('s.id', id).first();
   // Lock only the structure's own row: the joined users are read, not changed.

@@ -67,7 +67,8 @@ export function listDistricts({ db }: Reader): Promise<string[]> {
 }
 
 /** The editable fields of a structure as the API names them, from its row: what history records. */
-function editableFields(row: StructureRow): Record<keyof StructureChangeFields, unknown> {
+/** A stored structure's fields as its change body names them. */
+export function editableFields(row: StructureRow): Record<keyof StructureChangeFields, unknown> {
   return {
     structureNumber: row.structure_number,
     name: row.name,

@@ -1,0 +1,51 @@
+import ExcelJS from 'exceljs';
+import { Router } from 'express';
+import { z } from 'zod';
+import { addTemplateSheets, IMPORT_TEMPLATE_NAMES, templateCsv } from '../../../shared/src';
+import { allow, signedInUser } from '../access/access-policy';
+import type { Database } from '../db/database';
+import { idFrom, parseRequest } from '../http/validate';
+import { receivedImportFile, receiveImportFile, removeReceivedFile } from './import-upload';
+import { checkImport, getImport, importProblemsCsv, listImports } from './imports.service';
+
+const templateParameters = z.strictObject({
+  name: z.enum(IMPORT_TEMPLATE_NAMES, `expected one of ${IMPORT_TEMPLATE_NAMES.join(', ')}`),
+  format: z.enum(['csv', 'xlsx'], 'expected csv or xlsx'),
+});
+
+/** Imports of spreadsheets: templates, the check of an upload, the history and its error reports. */
+export function importsRouter(db: Database, sizeLimitBytes: number): Router {
+  const router = Router();
+
+  router.get('/import-templates/:name.:format', allow.signedIn, async (req, res) => {
+    const { name, format } = parseRequest(templateParameters, req.params, 'path parameter');
+    if (format === 'csv') {
+      res.type('text/csv').attachment(`${name}.csv`).send(templateCsv(name));
+      return;
+    }
+    const workbook = new ExcelJS.Workbook();
+    addTemplateSheets(workbook, name);
+    res.type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet').attachment(`${name}.xlsx`);
+    res.send(Buffer.from(await workbook.xlsx.writeBuffer()));
+  });
+  // Who may import which template is checked row by row against the matrix: inspectors bring findings, raters and managers inventory.
+  router.post('/imports', allow.signedIn, receiveImportFile(sizeLimitBytes), async (req, res) => {
+    const file = receivedImportFile(req);
+    try {
+      res.status(201).json(await checkImport({ db, user: signedInUser(req) }, file));
+    } finally {
+      await removeReceivedFile(file);
+    }
+  });
+  router.get('/imports', allow.to('view'), async (_req, res) => {
+    res.json(await listImports({ db }));
+  });
+  router.get('/imports/:id', allow.to('view'), async (req, res) => {
+    res.json(await getImport({ db }, idFrom(req.params)));
+  });
+  router.get('/imports/:id/problems.csv', allow.to('view'), async (req, res) => {
+    const { fileName, csv } = await importProblemsCsv({ db }, idFrom(req.params));
+    res.type('text/csv').attachment(fileName).send(csv);
+  });
+  return router;
+}

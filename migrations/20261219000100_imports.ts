@@ -1,0 +1,35 @@
+import type { Knex } from 'knex';
+
+/**
+ * Imports of spreadsheets. Each upload is checked before anything is written, and the check is
+ * kept: who sent which file (by name and by the SHA-256 of its bytes), what each template's rows
+ * would create, change or leave alone, and every problem found, for the history and its error
+ * report. A file's content can be imported once: a second committed import of the same bytes is
+ * refused by the database itself.
+ */
+export async function up(knex: Knex): Promise<void> {
+  await knex.schema.createTable('imports', (table) => {
+    table.increments('id').primary();
+    table.text('file_name').notNullable();
+    table.text('file_kind').notNullable();
+    table.integer('byte_size').notNullable();
+    table.text('content_sha256').notNullable();
+    table.text('state').notNullable().defaultTo('checked');
+    table.jsonb('counts').notNullable().defaultTo('{}').comment('per template: { rows, create, update, unchanged }');
+    table.integer('problem_count').notNullable().defaultTo(0);
+    table.jsonb('problems').notNullable().defaultTo('[]').comment('every problem: { sheet, row, column, value, message }');
+    table.integer('uploaded_by').references('users.id');
+    table.timestamp('uploaded_at', { useTz: true }).notNullable().defaultTo(knex.fn.now());
+    table.integer('committed_by').references('users.id');
+    table.timestamp('committed_at', { useTz: true });
+    table.integer('version').notNullable().defaultTo(1);
+    table.check("file_kind in ('csv', 'xlsx')", [], 'imports_file_kind_known');
+    table.check("state in ('checked', 'committed', 'discarded')", [], 'imports_state_known');
+  });
+  await knex.raw('create index imports_uploaded on imports (uploaded_at desc)');
+  await knex.raw("create unique index imports_content_once on imports (content_sha256) where state = 'committed'");
+}
+
+export async function down(knex: Knex): Promise<void> {
+  await knex.schema.dropTable('imports');
+}

@@ -1,0 +1,209 @@
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import ExcelJS from 'exceljs';
+import type { ImportDetail, ImportSummary, StructureDetail } from '../../shared/src';
+import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
+import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
+import { seed as seedDemoStructures } from '../../seeds/demo-structures';
+import { SignInClient, type ClientResponse } from '../support/sign-in-client';
+import { createTestDatabase, type TestDatabase } from '../support/test-database';
+import { startSignInTestBed, type SignInTestBed } from '../support/test-server';
+
+/** Demo staff (scripts/lib/local-identity-provider/demo-users.ts) and their districts. */
+const STAFF = {
+  inspectorSouth: 'bv-staff-1057',
+  raterCentral: 'bv-staff-2013',
+  managerNetwork: 'bv-staff-3002',
+} as const;
+type Staff = keyof typeof STAFF;
+
+const TEMPLATES = path.join(__dirname, '../../data-import/templates');
+const STRUCTURE_HEADERS = readFileSync(path.join(TEMPLATES, 'structures.csv'), 'utf8').split(/\r?\n/)[0]!;
+
+type ErrorBody = { error: { code: string; message: string; details?: { fields?: { field: string }[]; reason?: string } } };
+const json = <T>(response: ClientResponse) => JSON.parse(response.text) as T;
+
+/** A structures row in the template's column order (see data-import/templates/structures.csv). */
+function structureRow(values: Partial<Record<string, string | number>> & { structure_number: string }): string {
+  const defaults: Record<string, string | number> = {
+    name: 'Sample bridge',
+    route_carried: 'County Road 9',
+    feature_crossed: 'Sample Creek',
+    district: 'Central District',
+    longitude_deg: -97.9,
+    latitude_deg: 38.6,
+    year_built: 1984,
+    adt: 2400,
+    adtt: 300,
+    skew_deg: 0,
+    status: 'open',
+  };
+  return STRUCTURE_HEADERS.split(',')
+    .map((header) => String(values[header] ?? defaults[header] ?? ''))
+    .join(',');
+}
+
+const csvOf = (...rows: string[]) => [STRUCTURE_HEADERS, ...rows].join('\r\n') + '\r\n';
+
+describe('imports API: checking an upload', () => {
+  let testDb: TestDatabase;
+  let bed: SignInTestBed;
+  const clients = new Map<Staff, SignInClient>();
+
+  beforeAll(async () => {
+    testDb = await createTestDatabase();
+    await seedDemoStructures(testDb.db);
+    await seedDemoInventory(testDb.db);
+    await seedDemoConditions(testDb.db);
+    bed = await startSignInTestBed(testDb.url);
+    for (const staff of Object.keys(STAFF) as Staff[]) {
+      const client = new SignInClient(bed.server.url);
+      await client.signInAs(STAFF[staff]);
+      clients.set(staff, client);
+    }
+  }, 60_000);
+  afterAll(async () => {
+    await bed.stop();
+    await testDb.drop();
+  });
+
+  function upload(staff: Staff, bytes: Buffer | string, fileName: string, fields: Record<string, string> = {}, client = clients.get(staff)!) {
+    const form = new FormData();
+    for (const [key, value] of Object.entries(fields)) form.append(key, value);
+    form.append('file', new Blob([typeof bytes === 'string' ? bytes : new Uint8Array(bytes)], { type: 'application/octet-stream' }), fileName);
+    return client.request('/api/imports', { multipart: form });
+  }
+
+  it('offers each template as CSV, the same as data-import/templates, and as XLSX', async () => {
+    const csv = await clients.get('inspectorSouth')!.request('/api/import-templates/structures.csv');
+    expect(csv.status).toBe(200);
+    expect(csv.text).toBe(readFileSync(path.join(TEMPLATES, 'structures.csv'), 'utf8'));
+    const xlsx = await clients.get('inspectorSouth')!.request('/api/import-templates/strand-rows.xlsx');
+    expect(xlsx.status).toBe(200);
+    expect(xlsx.headers.get('content-type')).toMatch(/spreadsheetml/);
+    expect((await clients.get('inspectorSouth')!.request('/api/import-templates/bridges.csv')).status).toBe(400);
+  });
+
+  it('counts what a file would create, change and leave alone, and writes nothing to the register', async () => {
+    const existing = (await testDb.db('structures').where({ district: 'Central District' }).orderBy('structure_number').first('id')) as { id: number };
+    const stored = json<StructureDetail>(await clients.get('raterCentral')!.request(`/api/structures/${existing.id}`));
+    const asStored = structureRow({
+      structure_number: stored.structureNumber,
+      name: stored.name,
+      route_carried: stored.routeCarried,
+      feature_crossed: stored.featureCrossed,
+      district: stored.district,
+      longitude_deg: stored.longitude,
+      latitude_deg: stored.latitude,
+      year_built: stored.yearBuilt ?? '',
+      year_last_major_work: stored.yearLastMajorWork ?? '',
+      adt: stored.adt ?? '',
+      adtt: stored.adtt ?? '',
+      skew_deg: stored.skewDeg,
+      deck_condition: stored.conditions.deck ?? '',
+      superstructure_condition: stored.conditions.superstructure ?? '',
+      substructure_condition: stored.conditions.substructure ?? '',
+      condition_rated_on: stored.conditions.ratedOn ?? '',
+      status: stored.status,
+      notes: stored.notes,
+    });
+    const file = csvOf(structureRow({ structure_number: 'BV-C-0901' }), structureRow({ structure_number: 'BV-C-0902', name: 'Second sample bridge' }), asStored, asStored.replace(stored.name, `${stored.name} (renamed)`).replace(stored.structureNumber, stored.structureNumber));
+    // The last two rows name the same structure: the file contradicts itself.
+    const response = await upload('raterCentral', file, 'structures.csv');
+    expect(response.status).toBe(201);
+    const checked = json<ImportDetail>(response);
+    expect(checked).toMatchObject({ state: 'checked', fileKind: 'csv', fileName: 'structures.csv', uploaded: { by: 'Priya Halloran' }, committed: null });
+    expect(checked.problems.map((problem) => [problem.row, problem.column])).toEqual([[5, 'structure_number']]);
+
+    const clean = json<ImportDetail>(await upload('raterCentral', csvOf(structureRow({ structure_number: 'BV-C-0901' }), asStored, asStored.replace(`,${stored.name},`, `,${stored.name} (renamed),`).replace(stored.structureNumber, 'BV-C-0903')), 'structures.csv'));
+    expect(clean.problems).toEqual([]);
+    expect(clean.counts).toEqual({ structures: { rows: 3, create: 2, update: 0, unchanged: 1 } });
+    const renamed = json<ImportDetail>(await upload('raterCentral', csvOf(asStored.replace(`,${stored.name},`, `,${stored.name} (renamed),`)), 'structures.csv'));
+    expect(renamed.counts).toEqual({ structures: { rows: 1, create: 0, update: 1, unchanged: 0 } });
+
+    expect(await testDb.db('structures').whereIn('structure_number', ['BV-C-0901', 'BV-C-0902', 'BV-C-0903']).count<{ count: string }[]>('* as count')).toEqual([{ count: '0' }]);
+    const history = json<ImportSummary[]>(await clients.get('managerNetwork')!.request('/api/imports'));
+    expect(history.slice(0, 3).map((item) => item.id)).toEqual([renamed.id, clean.id, checked.id]);
+  });
+
+  it('names every bad cell by sheet, row, column and value, and reports them all as CSV', async () => {
+    const file = csvOf(
+      structureRow({ structure_number: 'BV-C-0911', adt: 'lots' }), // text in a number column
+      structureRow({ structure_number: 'BV-C-0912', name: '' }), // a required cell left empty
+      structureRow({ structure_number: 'BV-C-0913', superstructure_condition: 12 }), // out of range
+      structureRow({ structure_number: 'BV-C-0914', status: 'shut' }), // not one of the choices
+      structureRow({ structure_number: 'BV-C-0915', condition_rated_on: '31/12/2025' }), // not a date
+      structureRow({ structure_number: 'BV-C-0916', adt: 100, adtt: 400 }), // a rule between fields
+      structureRow({ structure_number: 'BV-C-0917', district: 'South District' }), // a district the rater may not change
+    );
+    const checked = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));
+    const named = checked.problems.map((problem) => `${problem.sheet}!${problem.row}:${problem.column}`);
+    expect(named).toEqual([
+      'structures!2:adt',
+      'structures!3:name',
+      'structures!4:superstructure_condition',
+      'structures!5:status',
+      'structures!6:condition_rated_on',
+      'structures!7:adtt',
+      'structures!8:structure_number',
+    ]);
+    expect(checked.problems[0]).toMatchObject({ value: 'lots' });
+    expect(checked.problems[6]!.message).toMatch(/South District/);
+    expect(checked.counts).toEqual({ structures: { rows: 1, create: 0, update: 0, unchanged: 0 } });
+
+    const report = await clients.get('raterCentral')!.request(`/api/imports/${checked.id}/problems.csv`);
+    expect(report.status).toBe(200);
+    expect(report.headers.get('content-disposition')).toContain(`import-${checked.id}-problems.csv`);
+    const lines = report.text.trim().split(/\r\n/);
+    expect(lines[0]).toBe('sheet,row,column,value,problem');
+    expect(lines).toHaveLength(8);
+    expect(lines[1]).toMatch(/^structures,2,adt,lots,/);
+  });
+
+  it('lets an inspector import findings but not the inventory', async () => {
+    const checked = json<ImportDetail>(await upload('inspectorSouth', csvOf(structureRow({ structure_number: 'BV-S-0921', district: 'South District' })), 'structures.csv'));
+    expect(checked.problems).toEqual([expect.objectContaining({ row: 2, column: 'structure_number', message: expect.stringMatching(/may not import structures/) })]);
+  });
+
+  it('reads an XLSX by its sheets, each named after its template', async () => {
+    const workbook = new ExcelJS.Workbook();
+    const structures = workbook.addWorksheet('structures');
+    structures.addRow(STRUCTURE_HEADERS.split(','));
+    structures.addRow(structureRow({ structure_number: 'BV-C-0931' }).split(',').map((cell) => (cell !== '' && !Number.isNaN(Number(cell)) ? Number(cell) : cell === '' ? null : cell)));
+    const other = workbook.addWorksheet('bridges');
+    other.addRow(['anything']);
+    other.addRow(['a value']);
+    const bytes = Buffer.from(await workbook.xlsx.writeBuffer());
+    const checked = json<ImportDetail>(await upload('raterCentral', bytes, 'central batch.xlsx'));
+    expect(checked.fileKind).toBe('xlsx');
+    expect(checked.counts).toEqual({ structures: { rows: 1, create: 1, update: 0, unchanged: 0 } });
+    expect(checked.problems).toEqual([expect.objectContaining({ sheet: 'bridges', message: expect.stringMatching(/named after its template/) })]);
+  });
+
+  it('refuses what is not a spreadsheet by its content, whatever its name, and a CSV of no known template', async () => {
+    const png = Buffer.from('89504e470d0a1a0a0000000d49484452', 'hex');
+    const refused = await upload('raterCentral', png, 'structures.xlsx');
+    expect(refused.status).toBe(415);
+    expect(json<ErrorBody>(refused).error.details?.reason).toBe('unsupported_file');
+    const unnamed = await upload('raterCentral', csvOf(structureRow({ structure_number: 'BV-C-0941' })), 'batch.csv');
+    expect(unnamed.status).toBe(400);
+    expect(json<ErrorBody>(unnamed).error.details?.fields?.map((field) => field.field)).toEqual(['template']);
+    const chosen = await upload('raterCentral', csvOf(structureRow({ structure_number: 'BV-C-0941' })), 'batch.csv', { template: 'structures' });
+    expect(chosen.status).toBe(201);
+    expect((await clients.get('raterCentral')!.request('/api/imports', { multipart: new FormData() })).status).toBe(400);
+  });
+
+  it('refuses an upload past the size limit with 413, before reading it', async () => {
+    const small = await startSignInTestBed(testDb.url, { IMPORT_MAX_BYTES: '2048' });
+    try {
+      const client = new SignInClient(small.server.url);
+      await client.signInAs(STAFF.raterCentral);
+      const rows = Array.from({ length: 40 }, (_, index) => structureRow({ structure_number: `BV-C-${String(950 + index).padStart(4, '0')}` }));
+      const response = await upload('raterCentral', csvOf(...rows), 'structures.csv', {}, client);
+      expect(response.status).toBe(413);
+      expect(json<ErrorBody>(response).error.code).toBe('payload_too_large');
+    } finally {
+      await small.stop();
+    }
+  });
+});
