@@ -2,6 +2,9 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import ExcelJS from 'exceljs';
 import type { ImportDetail, ImportSummary, StructureDetail } from '../../shared/src';
+import { toSignedInUser } from '../../backend/src/auth/auth.service';
+import { commitImport } from '../../backend/src/imports/imports.service';
+import { findUserBySubject } from '../../backend/src/users/users.repository';
 import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
 import { seed as seedDemoStructures } from '../../seeds/demo-structures';
@@ -205,5 +208,111 @@ describe('imports API: checking an upload', () => {
     } finally {
       await small.stop();
     }
+  });
+});
+
+describe('imports API: committing a checked upload', () => {
+  const SAMPLES = path.join(__dirname, '../../data-import/samples');
+  const sampleWorkbook = () => readFileSync(path.join(SAMPLES, 'west-district-inventory.xlsx'));
+  let testDb: TestDatabase;
+  let bed: SignInTestBed;
+  const clients = new Map<Staff, SignInClient>();
+
+  beforeAll(async () => {
+    testDb = await createTestDatabase();
+    await seedDemoStructures(testDb.db);
+    await seedDemoInventory(testDb.db);
+    await seedDemoConditions(testDb.db);
+    bed = await startSignInTestBed(testDb.url);
+    for (const staff of Object.keys(STAFF) as Staff[]) {
+      const client = new SignInClient(bed.server.url);
+      await client.signInAs(STAFF[staff]);
+      clients.set(staff, client);
+    }
+  }, 60_000);
+  afterAll(async () => {
+    await bed.stop();
+    await testDb.drop();
+  });
+
+  function upload(staff: Staff, bytes: Buffer | string, fileName: string) {
+    const form = new FormData();
+    form.append('file', new Blob([typeof bytes === 'string' ? bytes : new Uint8Array(bytes)]), fileName);
+    return clients.get(staff)!.request('/api/imports', { multipart: form });
+  }
+  const step = (staff: Staff, checked: Pick<ImportDetail, 'id' | 'version'>, name: 'commit' | 'discard') =>
+    clients.get(staff)!.request(`/api/imports/${checked.id}/${name}`, { json: { version: checked.version } });
+  const westCounts = async () => {
+    const [row] = await testDb.db('structures').where({ district: 'West District' }).count<{ count: string }[]>('* as count');
+    return Number(row!.count);
+  };
+
+  it('writes the sample inventory in one go, through the inventory rules, and refuses the same file again', async () => {
+    const checked = json<ImportDetail>(await upload('managerNetwork', sampleWorkbook(), 'west-district-inventory.xlsx'));
+    expect(checked.problems).toEqual([]);
+    expect(checked.counts.structures).toMatchObject({ create: 6 });
+    expect(checked.allowed).toEqual({ commit: true, discard: true });
+    // Only the uploader takes it further; a stale version is refused.
+    expect((await step('raterCentral', checked, 'commit')).status).toBe(403);
+    expect((await step('managerNetwork', { ...checked, version: checked.version + 1 }, 'commit')).status).toBe(409);
+
+    const committed = await step('managerNetwork', checked, 'commit');
+    expect(committed.status).toBe(200);
+    expect(json<ImportDetail>(committed)).toMatchObject({ state: 'committed', committed: { by: 'Greer Ashdown' }, allowed: { commit: false, discard: false } });
+    expect(await westCounts()).toBe(6);
+    const spans = await testDb.db('spans').join('structures', 'structures.id', 'spans.structure_id').where('structures.district', 'West District').select('spans.id', 'spans.girder_count', 'spans.rerating_due_since');
+    expect(spans.length).toBe(checked.counts.spans!.create);
+    const girders = await testDb.db('girders').whereIn('span_id', spans.map((span) => span.id)).count<{ count: string }[]>('* as count');
+    expect(Number(girders[0]!.count)).toBe(checked.counts.girders!.create);
+    expect(spans.every((span) => span.girder_count >= 2 && span.rerating_due_since !== null)).toBe(true);
+    const created = await testDb.db('audit_events').where({ action: 'structure.created' }).count<{ count: string }[]>('* as count');
+    expect(Number(created[0]!.count)).toBe(6);
+    const onMap = json<{ features: { properties: { district: string } }[] }>(await clients.get('raterCentral')!.request('/api/structures?district=West%20District'));
+    expect(onMap.features).toHaveLength(6);
+
+    const again = await upload('managerNetwork', sampleWorkbook(), 'copy of west.xlsx');
+    expect(again.status).toBe(409);
+    expect(json<ErrorBody>(again).error.message).toMatch(new RegExp(`import ${checked.id}`));
+  });
+
+  it('writes nothing when a fault stops a commit half way', async () => {
+    const file = csvOf(structureRow({ structure_number: 'BV-C-0961' }), structureRow({ structure_number: 'BV-C-0962' }));
+    const checked = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));
+    const user = toSignedInUser((await findUserBySubject(testDb.db, STAFF.raterCentral))!);
+    await expect(
+      commitImport({ db: testDb.db, user }, checked.id, checked.version, {
+        afterRowsWritten: () => {
+          throw new Error('the database went away');
+        },
+      }),
+    ).rejects.toThrow('the database went away');
+    expect(await testDb.db('structures').whereIn('structure_number', ['BV-C-0961', 'BV-C-0962']).first('id')).toBeUndefined();
+    expect((await testDb.db('imports').where({ id: checked.id }).first('state')).state).toBe('checked');
+  });
+
+  it('lets exactly one of two commits of the same file win, and fails a commit the register has moved past', async () => {
+    const file = csvOf(structureRow({ structure_number: 'BV-C-0971' }));
+    const first = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));
+    const second = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));
+    const answers = await Promise.all([step('raterCentral', first, 'commit'), step('raterCentral', second, 'commit')]);
+    const outcomes = answers.map((answer) => (answer.status === 200 ? json<ImportDetail>(answer).state : answer.status)).sort();
+    expect(outcomes).toEqual([409, 'committed']);
+    expect(await testDb.db('structures').where({ structure_number: 'BV-C-0971' }).count<{ count: string }[]>('* as count')).toEqual([{ count: '1' }]);
+
+    // Checked while the structure was new; by the commit a manager had added it in a district the rater may not change.
+    const late = json<ImportDetail>(await upload('raterCentral', csvOf(structureRow({ structure_number: 'BV-C-0972' })), 'structures.csv'));
+    const added = await clients.get('managerNetwork')!.request('/api/structures', { json: { structureNumber: 'BV-C-0972', name: 'Added meanwhile', routeCarried: 'Route 1', featureCrossed: 'Creek', district: 'South District', longitude: -97.5, latitude: 38.5 } });
+    expect(added.status).toBe(201);
+    const failed = json<ImportDetail>(await step('raterCentral', late, 'commit'));
+    expect(failed.state).toBe('failed');
+    expect(failed.problems).toEqual([expect.objectContaining({ row: 2, message: expect.stringMatching(/South District/) })]);
+    expect((await testDb.db('structures').where({ structure_number: 'BV-C-0972' }).first('name')).name).toBe('Added meanwhile');
+  });
+
+  it('sets a checked import aside for its uploader', async () => {
+    const checked = json<ImportDetail>(await upload('raterCentral', csvOf(structureRow({ structure_number: 'BV-C-0981' })), 'structures.csv'));
+    const discarded = await step('raterCentral', checked, 'discard');
+    expect(json<ImportDetail>(discarded).state).toBe('discarded');
+    expect((await step('raterCentral', json<ImportDetail>(discarded), 'commit')).status).toBe(409);
   });
 });

@@ -199,16 +199,34 @@ export type GirderColumns = Pick<GirderRow, 'position' | 'girder_type_id' | 'sec
 const GIRDER_JSON_COLUMNS = ['section', 'section_overrides', 'concrete', 'deck_concrete', 'losses', 'profiles', 'debonding', 'bars'] as const;
 
 /** Writes the girder and replaces its strand rows as a whole, when the row still has the version read. */
-export async function updateGirder(trx: Transaction, id: number, expectedVersion: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<boolean> {
+/** JSON columns go to the driver as text: node-postgres would write a JavaScript array as a PostgreSQL array. */
+function girderValues(columns: GirderColumns): Record<string, unknown> {
   const values: Record<string, unknown> = { ...columns };
   for (const column of GIRDER_JSON_COLUMNS) values[column] = columns[column] === null ? null : JSON.stringify(columns[column]);
+  return values;
+}
+
+async function insertStrandRows(trx: Transaction, girderId: number, strandRows: readonly StrandRowRecord[], userId: number): Promise<void> {
+  if (strandRows.length === 0) return;
+  await trx('strand_rows').insert(strandRows.map((row, rowOrder) => ({ ...row, girder_id: girderId, row_order: rowOrder, created_by: userId, updated_by: userId })));
+}
+
+export async function insertGirder(trx: Transaction, spanId: number, girderNumber: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<number> {
+  const [row] = await trx('girders')
+    .insert({ ...girderValues(columns), span_id: spanId, girder_number: girderNumber, created_by: userId, updated_by: userId })
+    .returning('id');
+  const id = (row as { id: number }).id;
+  await insertStrandRows(trx, id, strandRows, userId);
+  return id;
+}
+
+export async function updateGirder(trx: Transaction, id: number, expectedVersion: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<boolean> {
+  const values = girderValues(columns);
   const updated = await trx('girders')
     .where({ id, version: expectedVersion })
     .update({ ...values, version: trx.raw('version + 1'), updated_by: userId, updated_at: trx.fn.now() });
   if (updated !== 1) return false;
   await trx('strand_rows').where({ girder_id: id }).delete();
-  if (strandRows.length > 0) {
-    await trx('strand_rows').insert(strandRows.map((row, rowOrder) => ({ ...row, girder_id: id, row_order: rowOrder, created_by: userId, updated_by: userId })));
-  }
+  await insertStrandRows(trx, id, strandRows, userId);
   return true;
 }

@@ -17,6 +17,7 @@ import {
   findGirdersOfSpan,
   findStrandRows,
   girderTypeNameTaken,
+  insertGirder,
   insertGirderType,
   updateGirder,
   updateGirderType,
@@ -203,6 +204,27 @@ export async function changeGirder({ db, user }: { db: Database; user: SignedInU
     await recordAuditEvent({ db: trx, user, action: 'girder.changed', entity: { type: 'girder', id }, before: changes.before, after: changes.after });
     // What a rating of the span reads has changed.
     await markSpansReratingDue(trx, [row.span_id]);
+    return toGirderDetail((await findGirderById(trx, id))!, await findStrandRows(trx, id));
+  });
+}
+
+/**
+ * Adds a girder to a span (inside the user's districts): its record checked the way a rating
+ * will read it, as a change is, with a history entry. The caller sets the span's girder count
+ * once all its girders are written (a span never has fewer than two).
+ */
+export async function createGirder({ db, user }: { db: Database; user: SignedInUser }, spanId: number, girderNumber: number, record: GirderRecord): Promise<GirderDetail> {
+  return withTransaction(db, async (trx) => {
+    const span = await findSpanById(trx, spanId);
+    if (!span) throw AppError.notFound(`There is no span with id ${spanId}`);
+    const structure = (await findStructureById(trx, span.structure_id))!;
+    assertMayEditIn(user, structure.district);
+    const typeSection = await typeSectionFor(trx, record);
+    assertRateable(record, typeSection, span, { girder_number: girderNumber } as GirderRow, structure.skew_deg);
+    const written = girderColumnsOf(record);
+    const id = await insertGirder(trx, spanId, girderNumber, written.columns, written.strandRows, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'girder.created', entity: { type: 'girder', id }, after: { spanId, girderNumber, ...record } });
+    await markSpansReratingDue(trx, [spanId]);
     return toGirderDetail((await findGirderById(trx, id))!, await findStrandRows(trx, id));
   });
 }

@@ -1,4 +1,4 @@
-import type { ImportCounts, ImportProblem, ImportState, ImportTemplateName } from '../../../shared/src';
+import type { AnyConvertedRow, ImportCounts, ImportProblem, ImportState, ImportTemplateName } from '../../../shared/src';
 import type { Database, Transaction } from '../db/database';
 
 type Db = Database | Transaction;
@@ -16,6 +16,9 @@ export interface ImportRow {
   uploaded_by_name: string | null;
   committed_at: Date | null;
   committed_by_name: string | null;
+  uploaded_by: number | null;
+  progress_done: number | null;
+  progress_total: number | null;
   version: number;
 }
 
@@ -34,6 +37,9 @@ function importsWithPeople(db: Db) {
       'i.problem_count',
       'i.uploaded_at',
       'i.committed_at',
+      'i.uploaded_by',
+      'i.progress_done',
+      'i.progress_total',
       'i.version',
       'uploaded_by.display_name as uploaded_by_name',
       'committed_by.display_name as committed_by_name',
@@ -74,4 +80,60 @@ export async function insertCheckedImport(db: Db, columns: CheckedImportColumns,
     .insert({ ...columns, counts: JSON.stringify(columns.counts), problems: JSON.stringify(columns.problems), problem_count: columns.problems.length, uploaded_by: userId })
     .returning('id');
   return (row as { id: number }).id;
+}
+
+/** The checked rows, in file order, kept so a commit writes exactly what was checked. */
+export async function insertImportRows(trx: Db, importId: number, rows: readonly AnyConvertedRow[]): Promise<void> {
+  const CHUNK = 1000;
+  for (let start = 0; start < rows.length; start += CHUNK) {
+    await trx('import_rows').insert(
+      rows.slice(start, start + CHUNK).map((row, offset) => ({
+        import_id: importId,
+        position: start + offset,
+        template: row.template,
+        sheet: row.sheet,
+        row_number: row.rowNumber,
+        key_columns: row.keyColumns,
+        body: JSON.stringify(row.body),
+      })),
+    );
+  }
+}
+
+export async function findImportRows(db: Db, importId: number): Promise<AnyConvertedRow[]> {
+  const rows: { template: ImportTemplateName; sheet: string; row_number: number; key_columns: string; body: unknown }[] = await db('import_rows')
+    .where({ import_id: importId })
+    .orderBy('position')
+    .select('template', 'sheet', 'row_number', 'key_columns', 'body');
+  return rows.map((row) => ({ template: row.template, sheet: row.sheet, rowNumber: row.row_number, keyColumns: row.key_columns, body: row.body }) as AnyConvertedRow);
+}
+
+/** The import row locked for a step, with who uploaded it. */
+export async function findImportForStep(trx: Transaction, id: number): Promise<Pick<ImportRow, 'id' | 'state' | 'version' | 'uploaded_by' | 'problem_count' | 'content_sha256'> | undefined> {
+  return trx({ i: 'imports' }).where('i.id', id).forUpdate().first('i.id', 'i.state', 'i.version', 'i.uploaded_by', 'i.problem_count', 'i.content_sha256');
+}
+
+export interface ImportStepColumns {
+  state: ImportState;
+  committed?: boolean;
+  problems?: readonly ImportProblem[];
+  progress?: { done: number; total: number } | null;
+}
+
+export async function updateImportState(db: Db, id: number, step: ImportStepColumns, userId: number): Promise<void> {
+  await db('imports')
+    .where({ id })
+    .update({
+      state: step.state,
+      ...(step.committed ? { committed_by: userId, committed_at: db.fn.now() } : {}),
+      ...(step.problems ? { problems: JSON.stringify(step.problems), problem_count: step.problems.length } : {}),
+      ...(step.progress !== undefined ? { progress_done: step.progress?.done ?? null, progress_total: step.progress?.total ?? null } : {}),
+      version: db.raw('version + 1'),
+      updated_at: db.fn.now(),
+    });
+}
+
+/** Rows written so far by a commit in the background, written outside its transaction so others see it. */
+export async function updateImportProgress(db: Db, id: number, done: number, total: number): Promise<void> {
+  await db('imports').where({ id }).update({ progress_done: done, progress_total: total });
 }

@@ -1,12 +1,12 @@
 import ExcelJS from 'exceljs';
 import { Router } from 'express';
 import { z } from 'zod';
-import { addTemplateSheets, IMPORT_TEMPLATE_NAMES, templateCsv } from '../../../shared/src';
+import { addTemplateSheets, IMPORT_TEMPLATE_NAMES, importStep, templateCsv } from '../../../shared/src';
 import { allow, signedInUser } from '../access/access-policy';
 import type { Database } from '../db/database';
 import { idFrom, parseRequest } from '../http/validate';
 import { receivedImportFile, receiveImportFile, removeReceivedFile } from './import-upload';
-import { checkImport, getImport, importProblemsCsv, listImports } from './imports.service';
+import { checkImport, commitImport, discardImport, getImport, importProblemsCsv, listImports } from './imports.service';
 
 const templateParameters = z.strictObject({
   name: z.enum(IMPORT_TEMPLATE_NAMES, `expected one of ${IMPORT_TEMPLATE_NAMES.join(', ')}`),
@@ -41,7 +41,17 @@ export function importsRouter(db: Database, sizeLimitBytes: number): Router {
     res.json(await listImports({ db }));
   });
   router.get('/imports/:id', allow.to('view'), async (req, res) => {
-    res.json(await getImport({ db }, idFrom(req.params)));
+    res.json(await getImport({ db, user: signedInUser(req) }, idFrom(req.params)));
+  });
+  router.post('/imports/:id/commit', allow.signedIn, async (req, res) => {
+    const id = idFrom(req.params);
+    const { version } = parseRequest(importStep, req.body, 'body field');
+    res.json(await commitImport({ db, user: signedInUser(req) }, id, version));
+  });
+  router.post('/imports/:id/discard', allow.signedIn, async (req, res) => {
+    const id = idFrom(req.params);
+    const { version } = parseRequest(importStep, req.body, 'body field');
+    res.json(await discardImport({ db, user: signedInUser(req) }, id, version));
   });
   router.get('/imports/:id/problems.csv', allow.to('view'), async (req, res) => {
     const { fileName, csv } = await importProblemsCsv({ db }, idFrom(req.params));

@@ -1,10 +1,22 @@
-import { IMPORT_PROBLEMS_LISTED, type ImportDetail, type ImportProblem, type ImportSummary, type ImportTemplateName, type SignedInUser } from '../../../shared/src';
+import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, type AnyConvertedRow, type ImportDetail, type ImportProblem, type ImportSummary, type ImportTemplateName, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent } from '../audit/audit-events';
-import type { Database } from '../db/database';
+import { withTransaction, type Database, type Transaction } from '../db/database';
 import { AppError } from '../http/app-error';
 import { judgeAgainstRegister, readAndConvert } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
-import { findCommittedImportOfContent, findImportById, findImportProblems, findImports, insertCheckedImport, type ImportRow } from './imports.repository';
+import { writeRows } from './import-commit';
+import {
+  findCommittedImportOfContent,
+  findImportById,
+  findImportForStep,
+  findImportProblems,
+  findImportRows,
+  findImports,
+  insertCheckedImport,
+  insertImportRows,
+  updateImportState,
+  type ImportRow,
+} from './imports.repository';
 import { detectFileKind } from './readers/file-kind';
 import { ImportFileError, type ImportFileErrorCode } from './readers/import-file-error';
 
@@ -18,6 +30,7 @@ interface Writer extends Reader {
 const HISTORY_LENGTH = 200;
 
 function toSummary(row: ImportRow): ImportSummary {
+  const progress = row.progress_done !== null && row.progress_total !== null ? { done: row.progress_done, total: row.progress_total } : null;
   return {
     id: row.id,
     fileName: row.file_name,
@@ -29,12 +42,20 @@ function toSummary(row: ImportRow): ImportSummary {
     problemCount: row.problem_count,
     uploaded: { at: row.uploaded_at.toISOString(), by: row.uploaded_by_name },
     committed: row.committed_at ? { at: row.committed_at.toISOString(), by: row.committed_by_name } : null,
+    progress: row.state === 'committing' ? progress : null,
+    version: row.version,
   };
 }
 
-async function toDetail(db: Database, row: ImportRow): Promise<ImportDetail> {
+/** Only the uploader takes an import further: commits a clean check, or sets it aside. */
+function allowedSteps(row: Pick<ImportRow, 'state' | 'uploaded_by' | 'problem_count'>, user: SignedInUser | null): ImportDetail['allowed'] {
+  const own = user !== null && row.uploaded_by === user.id && row.state === 'checked';
+  return { commit: own && row.problem_count === 0, discard: own };
+}
+
+async function toDetail(db: Database, row: ImportRow, user: SignedInUser | null): Promise<ImportDetail> {
   const problems = await findImportProblems(db, row.id);
-  return { ...toSummary(row), problems: problems.slice(0, IMPORT_PROBLEMS_LISTED), problemsTruncated: problems.length > IMPORT_PROBLEMS_LISTED };
+  return { ...toSummary(row), problems: problems.slice(0, IMPORT_PROBLEMS_LISTED), problemsTruncated: problems.length > IMPORT_PROBLEMS_LISTED, allowed: allowedSteps(row, user) };
 }
 
 /** File-level refusals of the readers as the API's errors: what the file is not, or why it is too big to open. */
@@ -84,14 +105,7 @@ function templateFromName(fileName: string): ImportTemplateName | null {
 export async function checkImport({ db, user }: Writer, file: ReceivedImportFile): Promise<ImportDetail> {
   const sha256 = await contentSha256(file.filePath);
   const earlier = await findCommittedImportOfContent(db, sha256);
-  if (earlier) {
-    throw new AppError({
-      code: 'already_exists',
-      status: 409,
-      message: `This file was imported already: import ${earlier.id} of ${earlier.uploaded_at.toISOString().slice(0, 10)} by ${earlier.committed_by_name ?? 'someone'} holds the same bytes`,
-      details: { importId: earlier.id, fields: [{ field: 'file', message: 'imported already' }] },
-    });
-  }
+  if (earlier) throw importedBefore(earlier);
   let fileKind: 'csv' | 'xlsx';
   try {
     fileKind = await detectFileKind(file.filePath);
@@ -101,20 +115,118 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   }
   const read = await readFile(file, fileKind);
   const judged = await judgeAgainstRegister(db, user, read.rows);
-  const problems = [...read.problems, ...judged.problems];
-  const id = await insertCheckedImport(db, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems }, user.id);
-  await recordAuditEvent({ db, user, action: 'import.checked', entity: { type: 'import', id }, after: { fileName: file.fileName, contentSha256: sha256, counts: judged.counts, problemCount: problems.length } });
-  return toDetail(db, (await findImportById(db, id))!);
+  const problems = [...read.problems, ...judged.problems, ...notYetWritten(read.rows)];
+  const id = await withTransaction(db, async (trx) => {
+    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems }, user.id);
+    // Only a clean check can be committed, so only then are its rows worth keeping.
+    if (problems.length === 0) await insertImportRows(trx, inserted, read.rows);
+    await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts: judged.counts, problemCount: problems.length } });
+    return inserted;
+  });
+  return toDetail(db, (await findImportById(db, id))!, user);
+}
+
+function importedBefore(earlier: ImportRow): AppError {
+  return new AppError({
+    code: 'already_exists',
+    status: 409,
+    message: `This file was imported already: import ${earlier.id} of ${earlier.uploaded_at.toISOString().slice(0, 10)} by ${earlier.committed_by_name ?? 'someone'} holds the same bytes`,
+    details: { importId: earlier.id, fields: [{ field: 'file', message: 'imported already' }] },
+  });
+}
+
+/** Findings and prior ratings are checked in full, but this version writes only the inventory: say so once per sheet rather than pretend. */
+function notYetWritten(rows: readonly AnyConvertedRow[]): ImportProblem[] {
+  const sheets = new Map<string, AnyConvertedRow>();
+  for (const row of rows) if ((row.template === 'findings' || row.template === 'prior-ratings') && !sheets.has(row.sheet)) sheets.set(row.sheet, row);
+  return [...sheets.values()].map((row) => ({
+    sheet: row.sheet,
+    row: row.rowNumber,
+    column: '',
+    value: null,
+    message: `${row.template.replace('-', ' ')} rows are checked, but this version imports only structures, spans, girders and strand rows; import this sheet later, or record them on their pages`,
+  }));
+}
+
+/** The import locked for a step by its uploader, at the version read. */
+async function importForStep(trx: Transaction, user: SignedInUser, id: number, version: number) {
+  const row = await findImportForStep(trx, id);
+  if (!row) throw importNotFound(id);
+  if (row.uploaded_by !== user.id) throw AppError.forbidden('Only the person who uploaded a file commits it or sets it aside');
+  if (row.state !== 'checked') throw AppError.readOnly(`Import ${id} is ${IMPORT_STATE_NAMES[row.state].toLowerCase()}, not waiting to be imported`);
+  if (row.version !== version) throw AppError.versionConflict(`Import ${id}`, await toDetail(trx, (await findImportById(trx, id))!, user));
+  return row;
+}
+
+/** A fault injected between writing rows and finishing, for the test that a failed commit leaves nothing behind. */
+export interface CommitOptions {
+  readonly afterRowsWritten?: () => void | Promise<void>;
+}
+
+/**
+ * `POST /api/imports/:id/commit`: writes the checked rows through the inventory services in one
+ * transaction — every rule, right and history entry applies, and the spans touched become due
+ * for re-rating — or nothing at all: a row refused now (the register moved on since the check)
+ * fails the import with its problems. The same file's bytes are committed once: a second commit
+ * of them, even at the same moment, is refused by the database.
+ */
+export async function commitImport({ db, user }: Writer, id: number, version: number, options: CommitOptions = {}): Promise<ImportDetail> {
+  let failure: ImportProblem[] = [];
+  try {
+    await withTransaction(db, async (trx) => {
+      const row = await importForStep(trx, user, id, version);
+      if (row.problem_count > 0) throw AppError.readOnly(`Import ${id} has problems: fix the file and upload it again`);
+      // Commits of the same bytes take turns, so the second finds the first done and is refused.
+      await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
+      const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
+      if (earlier) throw importedBefore(earlier);
+      const problems = await writeRows(trx, user, await findImportRows(trx, id), () => undefined);
+      await options.afterRowsWritten?.();
+      if (problems.length > 0) {
+        failure = problems;
+        throw new CommitRefused();
+      }
+      await updateImportState(trx, id, { state: 'committed', committed: true, progress: null }, user.id);
+      await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id }, after: { contentSha256: row.content_sha256 } });
+    });
+  } catch (error) {
+    if (isUniqueViolation(error)) throw alreadyImported(id);
+    if (!(error instanceof CommitRefused)) throw error;
+    await updateImportState(db, id, { state: 'failed', problems: failure, progress: null }, user.id);
+    await recordAuditEvent({ db, user, action: 'import.failed', entity: { type: 'import', id }, after: { problemCount: failure.length } });
+  }
+  return toDetail(db, (await findImportById(db, id))!, user);
+}
+
+/** Rolls the commit's transaction back when rows were refused; the problems are kept outside it. */
+class CommitRefused extends Error {}
+
+const isUniqueViolation = (error: unknown) => (error as { code?: unknown } | null)?.code === '23505';
+
+const alreadyImported = (id: number) =>
+  new AppError({ code: 'already_exists', status: 409, message: `Import ${id} holds a file whose bytes were imported at the same moment by another import; nothing was written`, details: { fields: [{ field: 'file', message: 'imported already' }] } });
+
+/** `POST /api/imports/:id/discard`: the uploader sets a checked import aside; it stays in the history. */
+export async function discardImport({ db, user }: Writer, id: number, version: number): Promise<ImportDetail> {
+  await withTransaction(db, async (trx) => {
+    await importForStep(trx, user, id, version);
+    await updateImportState(trx, id, { state: 'discarded' }, user.id);
+    await trx('import_rows').where({ import_id: id }).delete();
+    await recordAuditEvent({ db: trx, user, action: 'import.discarded', entity: { type: 'import', id } });
+  });
+  return toDetail(db, (await findImportById(db, id))!, user);
 }
 
 export async function listImports({ db }: Reader): Promise<ImportSummary[]> {
   return (await findImports(db, HISTORY_LENGTH)).map(toSummary);
 }
 
-export async function getImport({ db }: Reader, id: number): Promise<ImportDetail> {
+const importNotFound = (id: number) => AppError.notFound(`There is no import with id ${id}`);
+
+export async function getImport({ db, user }: Reader & { user: SignedInUser | null }, id: number): Promise<ImportDetail> {
   const row = await findImportById(db, id);
-  if (!row) throw AppError.notFound(`There is no import with id ${id}`);
-  return toDetail(db, row);
+  if (!row) throw importNotFound(id);
+  return toDetail(db, row, user);
 }
 
 /** A CSV cell: quoted when it holds a separator, a quote or a line end; a leading formula sign is defused. */

@@ -63,3 +63,17 @@ export async function updateSpan(trx: Transaction, id: number, expectedVersion: 
     .update({ ...values, version: trx.raw('version + 1'), updated_by: userId, updated_at: trx.fn.now() });
   return updated === 1;
 }
+
+/** A new span of a structure, simply supported; its girder count follows the girders written with it. */
+export async function insertSpan(trx: Transaction, structureId: number, spanIndex: number, columns: Required<SpanColumns>, girderCount: number, userId: number): Promise<number> {
+  const values = Object.fromEntries(Object.entries(columns).map(([column, value]) => [column, JSON_COLUMNS.has(column) && value !== null ? JSON.stringify(value) : value]));
+  const [row] = await trx('spans')
+    .insert({ ...values, structure_id: structureId, span_index: spanIndex, girder_count: girderCount, support_type: 'simple', created_by: userId, updated_by: userId })
+    .returning('id');
+  return (row as { id: number }).id;
+}
+
+/** Sets a span's girder count to the girders stored on it. */
+export async function recountGirders(trx: Transaction, spanId: number): Promise<void> {
+  await trx.raw('update spans set girder_count = (select count(*) from girders where span_id = ?) where id = ?', [spanId, spanId]);
+}

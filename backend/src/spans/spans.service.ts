@@ -6,7 +6,7 @@ import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { AppError } from '../http/app-error';
 import { findStructureById } from '../structures/structures.repository';
 import { assertMayEditIn } from '../structures/structures.service';
-import { findSpanById, findSpansOfStructure, updateSpan, type SpanColumns, type SpanRow } from './spans.repository';
+import { findSpanById, findSpansOfStructure, insertSpan, updateSpan, type SpanColumns, type SpanRow } from './spans.repository';
 
 type SpanChangeFields = Omit<SpanChange, 'version'>;
 
@@ -91,6 +91,28 @@ export async function changeSpan({ db, user }: { db: Database; user: SignedInUse
     if (!(await updateSpan(trx, id, version, columns, user.id))) throw AppError.versionConflict(`Span ${row.span_index}`, toSpanDetail(row));
     await recordAuditEvent({ db: trx, user, action: 'span.changed', entity: { type: 'span', id }, before: changes.before, after: changes.after });
     // What a rating of the span reads has changed.
+    await markSpansReratingDue(trx, [id]);
+    return toSpanDetail((await findSpanById(trx, id))!);
+  });
+}
+
+/** The fields of a new span: every field a span has, as `PATCH /api/spans/:id` names them. */
+export type NewSpanFields = Required<SpanChangeFields>;
+
+/**
+ * Adds a span to a structure (inside the user's districts), simply supported, with the number of
+ * girders that will be written on it (at least two), and a history entry. The span is due for a
+ * rating from the start.
+ */
+export async function createSpan({ db, user }: { db: Database; user: SignedInUser }, structureId: number, spanIndex: number, fields: NewSpanFields, girderCount: number): Promise<SpanDetail> {
+  return withTransaction(db, async (trx) => {
+    const structure = await findStructureById(trx, structureId);
+    if (!structure) throw AppError.notFound(`There is no structure with id ${structureId}`);
+    assertMayEditIn(user, structure.district);
+    assertDiaphragmsOnSpan(fields.lengthM, fields.diaphragms);
+    const columns = Object.fromEntries(Object.entries(COLUMN_OF).map(([field, column]) => [column, fields[field as keyof NewSpanFields]])) as unknown as Required<SpanColumns>;
+    const id = await insertSpan(trx, structureId, spanIndex, columns, girderCount, user.id);
+    await recordAuditEvent({ db: trx, user, action: 'span.created', entity: { type: 'span', id }, after: { structureId, spanIndex, ...fields } });
     await markSpansReratingDue(trx, [id]);
     return toSpanDetail((await findSpanById(trx, id))!);
   });

@@ -1,3 +1,4 @@
+import { z } from 'zod';
 import type { ImportTemplateName } from './columns';
 import type { ImportProblem } from './rows';
 
@@ -7,10 +8,20 @@ import type { ImportProblem } from './rows';
  * import in the history with what it would create, change and leave alone.
  */
 
-/** checked: read and judged, nothing written; committed: written in one transaction; discarded: set aside by its uploader. */
-export const IMPORT_STATES = ['checked', 'committed', 'discarded'] as const;
+/**
+ * checked: read and judged, nothing written; committing: being written (a large file, in the
+ * background); committed: written in one transaction; failed: the write found problems and
+ * wrote nothing; discarded: set aside by its uploader.
+ */
+export const IMPORT_STATES = ['checked', 'committing', 'committed', 'failed', 'discarded'] as const;
 export type ImportState = (typeof IMPORT_STATES)[number];
-export const IMPORT_STATE_NAMES: Readonly<Record<ImportState, string>> = { checked: 'Checked', committed: 'Imported', discarded: 'Set aside' };
+export const IMPORT_STATE_NAMES: Readonly<Record<ImportState, string>> = {
+  checked: 'Checked',
+  committing: 'Importing',
+  committed: 'Imported',
+  failed: 'Not imported',
+  discarded: 'Set aside',
+};
 
 /** How the rows of one template would land: new records, changed ones and ones already as the file says. */
 export interface ImportCounts {
@@ -33,6 +44,9 @@ export interface ImportSummary {
   readonly problemCount: number;
   readonly uploaded: { readonly at: string; readonly by: string | null };
   readonly committed: { readonly at: string; readonly by: string | null } | null;
+  /** Rows written so far while committing; null otherwise. */
+  readonly progress: { readonly done: number; readonly total: number } | null;
+  readonly version: number;
 }
 
 /** `GET /api/imports/:id`: the summary with the problems found (the first ones, when there are very many). */
@@ -40,7 +54,12 @@ export interface ImportDetail extends ImportSummary {
   readonly problems: readonly ImportProblem[];
   /** True when more problems were found than are listed; the CSV report has them all. */
   readonly problemsTruncated: boolean;
+  /** Whether the signed-in user may commit or set aside this import now (the server checks again): its uploader, while checked with no problems. */
+  readonly allowed: { readonly commit: boolean; readonly discard: boolean };
 }
+
+/** Body of `POST /api/imports/:id/commit` and `/discard`: the version read. */
+export const importStep = z.strictObject({ version: z.number({ error: 'the version you read is required' }).int().positive() });
 
 /** Problems listed in an answer at most; the error report (CSV) has every one. */
 export const IMPORT_PROBLEMS_LISTED = 500;

@@ -35,4 +35,4 @@ export {
   type UploadCheck,
 } from './upload-checks';
 export { addTemplateSheets, allColumnsMarkdown, templateColumnsMarkdown, templateCsv } from './templates';
-export { IMPORT_PROBLEMS_LISTED, IMPORT_STATES, IMPORT_STATE_NAMES, type ImportCounts, type ImportDetail, type ImportState, type ImportSummary } from './api';
+export { IMPORT_PROBLEMS_LISTED, IMPORT_STATES, importStep, IMPORT_STATE_NAMES, type ImportCounts, type ImportDetail, type ImportState, type ImportSummary } from './api';

@@ -1,0 +1,201 @@
+import {
+  girderKey,
+  spanKey,
+  type AnyConvertedRow,
+  type ConvertedRow,
+  type GirderRecord,
+  type ImportProblem,
+  type ImportTemplateName,
+  type SignedInUser,
+  type StrandRow,
+} from '../../../shared/src';
+import type { Transaction } from '../db/database';
+import { toGirderRecord } from '../girders/girder-record';
+import { findGirderById, findGirderTypes, findStrandRows } from '../girders/girders.repository';
+import { changeGirder, createGirder } from '../girders/girders.service';
+import { AppError } from '../http/app-error';
+import { findSpansOfStructure, recountGirders } from '../spans/spans.repository';
+import { changeSpan, createSpan, type NewSpanFields } from '../spans/spans.service';
+import { findStructuresByNumbers } from '../structures/structures.repository';
+import { changeStructure, createStructure } from '../structures/structures.service';
+import { findGirdersOfSpans } from '../girders/girders.repository';
+
+/** Templates in the order their rows are written: each after what it hangs on. */
+const WRITE_ORDER: readonly ImportTemplateName[] = ['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings'];
+
+/** Called after each row is written, with how many are done and how many there are. */
+export type CommitProgress = (done: number, total: number) => Promise<void> | void;
+
+/** A service's refusal of one row (a rule, a right, a conflict), named at that row. */
+function problemsOf(row: AnyConvertedRow, error: AppError): ImportProblem[] {
+  const fields = (error.details as { fields?: { field: string; message: string }[] } | null)?.fields;
+  if (fields && fields.length > 0) return fields.map((field) => ({ sheet: row.sheet, row: row.rowNumber, column: field.field, value: null, message: field.message }));
+  return [{ sheet: row.sheet, row: row.rowNumber, column: row.keyColumns, value: null, message: error.message }];
+}
+
+/** Ids of what the file has written so far, by key, so later rows find the records earlier ones made. */
+class WrittenRecords {
+  readonly structures = new Map<string, number>();
+  readonly spans = new Map<string, number>();
+  readonly girders = new Map<string, number>();
+}
+
+/** What the commit needs to know of the file as a whole: how many girders each new span gets, and each girder's strand rows. */
+function fileFacts(rows: readonly AnyConvertedRow[]) {
+  const girdersPerSpan = new Map<string, number>();
+  const strandRowsOfGirder = new Map<string, StrandRow[]>();
+  for (const row of rows) {
+    if (row.template === 'girders') girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
+    if (row.template === 'strand-rows') strandRowsOfGirder.set(girderKey(row.body), [...(strandRowsOfGirder.get(girderKey(row.body)) ?? []), row.body.strandRow]);
+  }
+  return { girdersPerSpan, strandRowsOfGirder };
+}
+
+type Facts = ReturnType<typeof fileFacts>;
+
+interface Writer {
+  readonly trx: Transaction;
+  readonly user: SignedInUser;
+  readonly written: WrittenRecords;
+  readonly facts: Facts;
+  readonly girderTypeIds: ReadonlyMap<string, number>;
+  /** Spans that girders were added to: their girder count is set once all are written. */
+  readonly spansGainingGirders: Set<number>;
+}
+
+async function structureId(writer: Writer, structureNumber: string): Promise<number> {
+  const known = writer.written.structures.get(structureNumber);
+  if (known !== undefined) return known;
+  const [stored] = await findStructuresByNumbers(writer.trx, [structureNumber]);
+  if (!stored) throw AppError.invalidFields([{ field: 'structure_number', message: `structure ${structureNumber} is not in the register` }]);
+  writer.written.structures.set(structureNumber, stored.id);
+  return stored.id;
+}
+
+async function spanId(writer: Writer, structureNumber: string, spanIndex: number): Promise<number> {
+  const key = spanKey({ structureNumber, spanIndex });
+  const known = writer.written.spans.get(key);
+  if (known !== undefined) return known;
+  const span = (await findSpansOfStructure(writer.trx, await structureId(writer, structureNumber))).find((each) => each.span_index === spanIndex);
+  if (!span) throw AppError.invalidFields([{ field: 'span_index', message: `structure ${structureNumber} has no span ${spanIndex}` }]);
+  writer.written.spans.set(key, span.id);
+  return span.id;
+}
+
+async function storedGirder(writer: Writer, key: Parameters<typeof girderKey>[0]) {
+  const id = writer.written.girders.get(girderKey(key));
+  if (id !== undefined) return findGirderById(writer.trx, id);
+  const [girder] = (await findGirdersOfSpans(writer.trx, [await spanId(writer, key.structureNumber, key.spanIndex)])).filter((each) => each.girder_number === key.girderNumber);
+  return girder;
+}
+
+async function writeStructure(writer: Writer, row: ConvertedRow<'structures'>): Promise<void> {
+  const [stored] = await findStructuresByNumbers(writer.trx, [row.body.structureNumber]);
+  const detail = stored
+    ? await changeStructure({ db: writer.trx, user: writer.user }, stored.id, { ...row.body, version: stored.version })
+    : await createStructure({ db: writer.trx, user: writer.user }, row.body);
+  writer.written.structures.set(row.body.structureNumber, detail.id);
+}
+
+/** What a new span has when its row leaves it out: the optional columns of the spans template, and diaphragms, which it does not carry. */
+const NEW_SPAN_DEFAULTS: Pick<NewSpanFields, 'barrierFaceToGirderMm' | 'wearingSurface' | 'barriers' | 'diaphragms'> = {
+  barrierFaceToGirderMm: null,
+  wearingSurface: null,
+  barriers: [],
+  diaphragms: [],
+};
+
+async function writeSpan(writer: Writer, row: ConvertedRow<'spans'>): Promise<void> {
+  const { structureNumber, spanIndex, span } = row.body;
+  const id = await structureId(writer, structureNumber);
+  const stored = (await findSpansOfStructure(writer.trx, id)).find((each) => each.span_index === spanIndex);
+  if (stored) {
+    await changeSpan({ db: writer.trx, user: writer.user }, stored.id, { ...span, version: stored.version });
+    writer.written.spans.set(spanKey(row.body), stored.id);
+    return;
+  }
+  const girderCount = writer.facts.girdersPerSpan.get(spanKey(row.body)) ?? 0;
+  if (girderCount < 2) throw AppError.invalidFields([{ field: row.keyColumns, message: 'a new span needs its girders (at least two) in the same file' }]);
+  const created = await createSpan({ db: writer.trx, user: writer.user }, id, spanIndex, { ...NEW_SPAN_DEFAULTS, ...span } as NewSpanFields, girderCount);
+  writer.written.spans.set(spanKey(row.body), created.id);
+}
+
+function recordOf(writer: Writer, row: ConvertedRow<'girders'>, strandRows: GirderRecord['strandRows']): GirderRecord {
+  const { girderTypeName, record } = row.body;
+  const girderTypeId = girderTypeName === null ? null : (writer.girderTypeIds.get(girderTypeName.toLowerCase()) ?? null);
+  if (girderTypeName !== null && girderTypeId === null) throw AppError.invalidFields([{ field: 'girder_type', message: `"${girderTypeName}" is not a girder type of the catalogue` }]);
+  return { ...record, girderTypeId, strandRows };
+}
+
+async function writeGirder(writer: Writer, row: ConvertedRow<'girders'>): Promise<void> {
+  const key = girderKey(row.body);
+  const stored = await storedGirder(writer, row.body);
+  const fileStrandRows = writer.facts.strandRowsOfGirder.get(key);
+  if (stored) {
+    const strandRows = fileStrandRows ?? toGirderRecord(stored, await findStrandRows(writer.trx, stored.id)).strandRows;
+    await changeGirder({ db: writer.trx, user: writer.user }, stored.id, { ...recordOf(writer, row, strandRows), version: stored.version });
+    writer.written.girders.set(key, stored.id);
+    return;
+  }
+  const spanRowId = await spanId(writer, row.body.structureNumber, row.body.spanIndex);
+  const created = await createGirder({ db: writer.trx, user: writer.user }, spanRowId, row.body.girderNumber, recordOf(writer, row, fileStrandRows ?? []));
+  writer.spansGainingGirders.add(spanRowId);
+  writer.written.girders.set(key, created.id);
+}
+
+/** Strand rows of a girder the file does not otherwise change replace its stored rows as a whole, once per girder. */
+async function writeStrandRows(writer: Writer, row: ConvertedRow<'strand-rows'>, done: Set<string>): Promise<void> {
+  const key = girderKey(row.body);
+  if (done.has(key) || writer.written.girders.has(key)) return;
+  done.add(key);
+  const stored = await storedGirder(writer, row.body);
+  if (!stored) throw AppError.invalidFields([{ field: row.keyColumns, message: 'this girder is neither in the register nor in this file' }]);
+  const record = toGirderRecord(stored, await findStrandRows(writer.trx, stored.id));
+  await changeGirder({ db: writer.trx, user: writer.user }, stored.id, { ...record, strandRows: writer.facts.strandRowsOfGirder.get(key)!, version: stored.version });
+}
+
+/**
+ * Writes the checked rows through the same services as the API, so every rule, right and
+ * history entry applies, inside the caller's transaction. A row a service refuses becomes a
+ * problem at that row; the caller rolls everything back when there is any.
+ */
+export async function writeRows(trx: Transaction, user: SignedInUser, rows: readonly AnyConvertedRow[], onProgress: CommitProgress): Promise<ImportProblem[]> {
+  const ordered = WRITE_ORDER.flatMap((template) => rows.filter((row) => row.template === template));
+  const writer: Writer = {
+    trx,
+    user,
+    written: new WrittenRecords(),
+    facts: fileFacts(rows),
+    girderTypeIds: new Map((await findGirderTypes(trx)).map((type) => [type.name.toLowerCase(), type.id])),
+    spansGainingGirders: new Set(),
+  };
+  const strandRowsDone = new Set<string>();
+  const problems: ImportProblem[] = [];
+  for (const [index, row] of ordered.entries()) {
+    try {
+      await writeRow(writer, row, strandRowsDone);
+    } catch (error) {
+      if (!(error instanceof AppError)) throw error;
+      problems.push(...problemsOf(row, error));
+    }
+    await onProgress(index + 1, ordered.length);
+  }
+  if (problems.length === 0) for (const spanRowId of writer.spansGainingGirders) await recountGirders(trx, spanRowId);
+  return problems;
+}
+
+async function writeRow(writer: Writer, row: AnyConvertedRow, strandRowsDone: Set<string>): Promise<void> {
+  switch (row.template) {
+    case 'structures':
+      return writeStructure(writer, row);
+    case 'spans':
+      return writeSpan(writer, row);
+    case 'girders':
+      return writeGirder(writer, row);
+    case 'strand-rows':
+      return writeStrandRows(writer, row, strandRowsDone);
+    case 'findings':
+    case 'prior-ratings':
+      throw AppError.invalidFields([{ field: row.keyColumns, message: `${row.template.replace('-', ' ')} are checked but not yet written by this version of the import` }]);
+  }
+}
