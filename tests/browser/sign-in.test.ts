@@ -86,6 +86,8 @@ describe('signing in through the organisation identity provider', () => {
   it('signs out, after which the map asks for sign-in again', async () => {
     const { page, errors } = await newPage();
     await signInThroughProvider(page, appUrl(), 'bv-staff-1041');
+    // Sign out from the map as a person would, once it has shown the network (not while its first answers are on their way).
+    await page.getByTestId('structure-list-item').first().waitFor();
     await page.getByTestId('sign-out').click();
     await page.getByRole('heading', { name: 'Sign in to Spanledger' }).waitFor();
     await page.goto(appUrl());
