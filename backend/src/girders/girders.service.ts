@@ -139,15 +139,10 @@ async function typeSectionFor(db: Database | Transaction, record: GirderRecord):
   return type.section;
 }
 
-/**
- * Checks the girder the way a rating will read it: assembles the rating calculation file from the
- * record and its span and lets the engine's own schema judge it, naming each problem by its
- * place in the record. A girder that passes can always be rated.
- */
 /** A rating calculation file of the girder as stored in its span, with the given damage; traffic, condition and vehicle only complete it. */
-function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number, damage: readonly DamageEntry[] = []) {
+function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number, damage: readonly DamageEntry[] = []) {
   const { columns, strandRows } = girderColumnsOf(record);
-  const stored: StoredGirder = { girder: { ...columns, girder_number: row.girder_number }, typeSection, strandRows };
+  const stored: StoredGirder = { girder: { ...columns, girder_number: girderNumber }, typeSection, strandRows };
   return {
     units: 'si',
     ...girderCalcFileParts(stored, span, skewDeg),
@@ -158,8 +153,13 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
   };
 }
 
-function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, row: GirderRow, skewDeg: number): void {
-  const parsed = parseRateFile(rateFileOf(record, typeSection, span, row, skewDeg));
+/**
+ * Checks the girder the way a rating will read it: assembles the rating calculation file from the
+ * record and its span and lets the engine's own schema judge it, naming each problem by its
+ * place in the record. A girder that passes can always be rated.
+ */
+function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number): void {
+  const parsed = parseRateFile(rateFileOf(record, typeSection, span, girderNumber, skewDeg));
   if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
 }
 
@@ -174,7 +174,7 @@ export async function damageIssuesOnGirder(db: Database | Transaction, girderId:
   const record = toGirderRecord(row, await findStrandRows(db, girderId));
   const span = (await findSpanById(db, row.span_id))!;
   const structure = (await findStructureById(db, row.structure_id))!;
-  const parsed = parseRateFile(rateFileOf(record, row.type_section, span, row, structure.skew_deg, damage));
+  const parsed = parseRateFile(rateFileOf(record, row.type_section, span, row.girder_number, structure.skew_deg, damage));
   return parsed.ok ? [] : parsed.issues.filter((issue) => issue.path.startsWith('damage'));
 }
 
@@ -193,7 +193,7 @@ export async function changeGirder({ db, user }: { db: Database; user: SignedInU
     const typeSection = await typeSectionFor(trx, record);
     const span = (await findSpanById(trx, row.span_id))!;
     const structure = (await findStructureById(trx, row.structure_id))!;
-    assertRateable(record, typeSection, span, row, structure.skew_deg);
+    assertRateable(record, typeSection, span, row.girder_number, structure.skew_deg);
 
     const changes = changedFields(toGirderRecord(row, strandRows), record);
     if (changes.fields.length === 0) return toGirderDetail(row, strandRows);
@@ -220,7 +220,7 @@ export async function createGirder({ db, user }: { db: Database; user: SignedInU
     const structure = (await findStructureById(trx, span.structure_id))!;
     assertMayEditIn(user, structure.district);
     const typeSection = await typeSectionFor(trx, record);
-    assertRateable(record, typeSection, span, { girder_number: girderNumber } as GirderRow, structure.skew_deg);
+    assertRateable(record, typeSection, span, girderNumber, structure.skew_deg);
     const written = girderColumnsOf(record);
     const id = await insertGirder(trx, spanId, girderNumber, written.columns, written.strandRows, user.id);
     await recordAuditEvent({ db: trx, user, action: 'girder.created', entity: { type: 'girder', id }, after: { spanId, girderNumber, ...record } });

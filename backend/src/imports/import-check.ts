@@ -44,7 +44,11 @@ const ACTION_OF: Readonly<Record<ImportTemplateName, Action>> = {
   'prior-ratings': 'runRatings',
 };
 
-const templateOfSheet = (sheet: string): ImportTemplateName | undefined => IMPORT_TEMPLATE_NAMES.find((name) => name === sheet.trim().toLowerCase());
+/** The template a sheet or file name stands for ("Strand rows", "strand_rows", "strand-rows"), if any. */
+export function templateNamed(text: string): ImportTemplateName | null {
+  const name = text.trim().toLowerCase().replace(/[ _]+/g, '-');
+  return IMPORT_TEMPLATE_NAMES.find((template) => template === name) ?? null;
+}
 
 /**
  * Reads every row of the file and checks it against its template (a sheet is named after its
@@ -58,7 +62,7 @@ export async function readAndConvert(filePath: string, csvTemplate: ImportTempla
   for await (const row of readRows(filePath, csvTemplate ? { sheetName: csvTemplate } : {})) {
     let sheet = headersBySheet.get(row.sheet);
     if (sheet === undefined) {
-      const template = templateOfSheet(row.sheet);
+      const template = templateNamed(row.sheet);
       if (!template) {
         problems.push({ sheet: row.sheet, row: 0, column: '', value: row.sheet, message: `a sheet must be named after its template: ${IMPORT_TEMPLATE_NAMES.join(', ')}` });
         sheet = null;

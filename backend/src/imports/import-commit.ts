@@ -11,14 +11,13 @@ import {
 } from '../../../shared/src';
 import type { Transaction } from '../db/database';
 import { toGirderRecord } from '../girders/girder-record';
-import { findGirderById, findGirderTypes, findStrandRows } from '../girders/girders.repository';
+import { findGirderById, findGirdersOfSpans, findGirderTypes, findStrandRows } from '../girders/girders.repository';
 import { changeGirder, createGirder } from '../girders/girders.service';
 import { AppError } from '../http/app-error';
 import { findSpansOfStructure, recountGirders } from '../spans/spans.repository';
 import { changeSpan, createSpan, type NewSpanFields } from '../spans/spans.service';
 import { findStructuresByNumbers } from '../structures/structures.repository';
 import { changeStructure, createStructure } from '../structures/structures.service';
-import { findGirdersOfSpans } from '../girders/girders.repository';
 
 /** Templates in the order their rows are written: each after what it hangs on. */
 const WRITE_ORDER: readonly ImportTemplateName[] = ['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings'];

@@ -1,6 +1,5 @@
 import { createHash } from 'node:crypto';
-import { createReadStream } from 'node:fs';
-import { mkdirSync } from 'node:fs';
+import { createReadStream, mkdirSync } from 'node:fs';
 import { rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -9,13 +8,11 @@ import multer, { MulterError } from 'multer';
 import { z } from 'zod';
 import { IMPORT_TEMPLATE_NAMES } from '../../../shared/src';
 import { AppError } from '../http/app-error';
+import { cleanUploadFileName, megabytes } from '../http/uploads';
 import { parseRequest } from '../http/validate';
 
 /** Where uploads wait while they are checked; each is removed when its request ends. */
 const UPLOAD_FOLDER = path.join(tmpdir(), 'spanledger-imports');
-const LONGEST_FILE_NAME = 200;
-
-const megabytes = (bytes: number) => `${Math.round((bytes / (1024 * 1024)) * 10) / 10} MB`;
 
 /** The form's text fields: the template of a CSV file (an XLSX names its templates by its sheets). */
 const uploadForm = z.strictObject({
@@ -66,17 +63,11 @@ export interface ReceivedImportFile {
   readonly template: (typeof IMPORT_TEMPLATE_NAMES)[number] | null;
 }
 
-/** The client's file name, kept only as a label: no folders, no control characters, not too long. */
-function cleanFileName(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? '';
-  return Array.from(base.replace(/\p{Cc}/gu, '').trim()).slice(0, LONGEST_FILE_NAME).join('') || 'upload';
-}
-
 /** The file `receiveImportFile` wrote; 400 naming `file` when none came. */
 export function receivedImportFile(req: Request): ReceivedImportFile {
   const { template } = parseRequest(uploadForm, req.body ?? {}, 'body field');
   if (!req.file) throw AppError.invalidFields([{ field: 'file', message: 'choose a CSV or XLSX file to import' }]);
-  return { filePath: req.file.path, fileName: cleanFileName(req.file.originalname), byteSize: req.file.size, template: template ?? null };
+  return { filePath: req.file.path, fileName: cleanUploadFileName(req.file.originalname, 'upload'), byteSize: req.file.size, template: template ?? null };
 }
 
 /** Removes the upload's temporary file; nothing else refers to it. */

@@ -2,7 +2,7 @@ import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, type AnyConvertedRow, type 
 import { recordAuditEvent } from '../audit/audit-events';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { AppError } from '../http/app-error';
-import { judgeAgainstRegister, readAndConvert } from './import-check';
+import { judgeAgainstRegister, readAndConvert, templateNamed } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
 import { writeRows } from './import-commit';
 import {
@@ -79,7 +79,7 @@ function problemOf(error: ImportFileError): ImportProblem {
 }
 
 async function readFile(file: ReceivedImportFile, fileKind: 'csv' | 'xlsx') {
-  const csvTemplate: ImportTemplateName | null = fileKind === 'csv' ? (file.template ?? templateFromName(file.fileName)) : null;
+  const csvTemplate: ImportTemplateName | null = fileKind === 'csv' ? (file.template ?? templateNamed(file.fileName.replace(/\.[^.]*$/, ''))) : null;
   if (fileKind === 'csv' && csvTemplate === null) {
     throw AppError.invalidFields([{ field: 'template', message: 'a CSV file holds one template: choose which, or name the file after it (structures.csv, spans.csv, …)' }]);
   }
@@ -90,11 +90,6 @@ async function readFile(file: ReceivedImportFile, fileKind: 'csv' | 'xlsx') {
     if (error.sheet === undefined) throw unreadableFile(error);
     return { rows: [], problems: [problemOf(error)] };
   }
-}
-
-function templateFromName(fileName: string): ImportTemplateName | null {
-  const stem = fileName.replace(/\.[^.]*$/, '').trim().toLowerCase().replace(/[ _]/g, '-');
-  return (['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings'] as const).find((name) => stem === name) ?? null;
 }
 
 /**

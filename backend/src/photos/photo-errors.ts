@@ -14,8 +14,3 @@ export function unsupportedPhoto(message: string): AppError {
 export function photoTooLarge(message: string): AppError {
   return uploadFieldError('payload_too_large', 413, 'photo', message);
 }
-
-/** "10 MB" for 10 485 760 bytes: how people read a size limit. */
-export function megabytes(bytes: number): string {
-  return `${Number((bytes / (1024 * 1024)).toFixed(1))} MB`;
-}

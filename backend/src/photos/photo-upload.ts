@@ -2,16 +2,15 @@ import type { Request, RequestHandler } from 'express';
 import multer, { MulterError } from 'multer';
 import { z } from 'zod';
 import { AppError } from '../http/app-error';
+import { cleanUploadFileName, megabytes } from '../http/uploads';
 import { idParameters, parseRequest } from '../http/validate';
-import { megabytes, photoTooLarge, uploadFieldError } from './photo-errors';
+import { photoTooLarge, uploadFieldError } from './photo-errors';
 import type { PhotoUpload } from './photos.service';
 
 /** The text fields the upload form may carry besides the file; an empty `findingId` means none. */
 const uploadForm = z.strictObject({
   findingId: z.preprocess((value) => (value === '' ? undefined : value), idParameters.shape.id.optional()),
 });
-
-const LONGEST_FILE_NAME = 200;
 
 /** Why multer stopped reading the form, as the API's errors; anything else it met was a broken body. */
 function uploadError(error: unknown, sizeLimitBytes: number): AppError {
@@ -49,16 +48,9 @@ export function receivePhoto(sizeLimitBytes: number): RequestHandler {
   };
 }
 
-/** The client's file name, kept only as a label: no folders, no control characters, not too long. */
-function cleanFileName(name: string): string {
-  const base = name.split(/[\\/]/).pop() ?? '';
-  const printable = Array.from(base.replace(/\p{Cc}/gu, '').trim()).slice(0, LONGEST_FILE_NAME).join('');
-  return printable || 'photo';
-}
-
 /** The file and fields `receivePhoto` read; 400 naming `photo` when no file came, or naming a bad field. */
 export function photoUploadFrom(req: Request): PhotoUpload {
   const form = parseRequest(uploadForm, { ...req.body }, 'body field');
   if (!req.file) throw uploadFieldError('validation_failed', 400, 'photo', 'attach one JPEG, PNG or WebP file in the form field photo');
-  return { bytes: req.file.buffer, originalName: cleanFileName(req.file.originalname), findingId: form.findingId ?? null };
+  return { bytes: req.file.buffer, originalName: cleanUploadFileName(req.file.originalname, 'photo'), findingId: form.findingId ?? null };
 }

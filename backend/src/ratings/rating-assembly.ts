@@ -74,6 +74,11 @@ function vehicleReference(row: LibraryDefinitionRow): string | Record<string, un
   return builtIn ? { ...row.definition, id: `${row.id}@${row.version}` } : row.definition;
 }
 
+/** A library vehicle as a record lists it: id, version, name and category. */
+export function vehicleSummary(row: LibraryDefinitionRow): AssembledRating['vehicles'][number] {
+  return { id: row.id, version: row.version, name: row.definition.name ?? row.id, category: row.definition.category ?? null };
+}
+
 function chosenVehicles(sources: RatingSources, run: RatingRun): LibraryDefinitionRow[] {
   const problems: InvalidField[] = [];
   const chosen = run.vehicleIds.flatMap((id, index) => {
@@ -182,7 +187,7 @@ export function assembleRating(sources: RatingSources, run: RatingRun): Assemble
   return {
     girders,
     appliedFindings,
-    vehicles: vehicles.map((row) => ({ id: row.id, version: row.version, name: row.definition.name ?? row.id, category: row.definition.category ?? null })),
+    vehicles: vehicles.map(vehicleSummary),
     policy: { id: policy.id, version: policy.version },
     notes: pendingCondition
       ? [`superstructure condition ${pendingCondition.superstructure} from the inspection of ${pendingCondition.inspectedOn}, submitted and not yet accepted (the structure's accepted rating is ${structure.superstructure_condition ?? 'none'})`]

@@ -20,7 +20,7 @@ import { findOpenFindingsOfSpan, findPendingSuperstructureCondition } from '../i
 import { findLatestLibraryDefinitions } from '../library/library.repository';
 import { findSpanById } from '../spans/spans.repository';
 import { findStructureById } from '../structures/structures.repository';
-import { assembleRating, findingsAsApplied, rateAssembled, type RatingSources } from './rating-assembly';
+import { assembleRating, findingsAsApplied, rateAssembled, vehicleSummary, type RatingSources } from './rating-assembly';
 import {
   clearReratingDue,
   findRatingById,
@@ -82,11 +82,14 @@ function allowedSteps(user: SignedInUser | null, row: RatingRow): RatingDetail['
   return { rerun: editable, submit: editable, approve: reviewable && !row.hypothetical, return: reviewable };
 }
 
+/** An approved record's headline figures, as a later record or the rating setup compares with them; null for one never approved. */
+function ofRecordFigures(row: RatingRow | undefined): RatingDetail['previousRecord'] {
+  if (!row?.reviewed_at) return null;
+  return { id: row.id, lowestLegalRf: row.lowest_legal_rf, lowestInventoryRf: row.lowest_inventory_rf, approvedAt: row.reviewed_at.toISOString() };
+}
+
 async function previousRecordOf(db: Database | Transaction, row: RatingRow): Promise<RatingDetail['previousRecord']> {
-  if (row.previous_record_id === null) return null;
-  const previous = await findRatingById(db, row.previous_record_id);
-  if (!previous?.reviewed_at) return null;
-  return { id: previous.id, lowestLegalRf: previous.lowest_legal_rf, lowestInventoryRf: previous.lowest_inventory_rf, approvedAt: previous.reviewed_at.toISOString() };
+  return row.previous_record_id === null ? null : ofRecordFigures(await findRatingById(db, row.previous_record_id));
 }
 
 /** Warnings of the girders, once each: those every girder shares plainly, the others with the girder they concern. */
@@ -180,11 +183,9 @@ export async function ratingSetup({ db }: Reader, spanId: number): Promise<Ratin
     district: sources.structure.district,
     girders: sources.girders.map((girder) => ({ id: girder.id, girderNumber: girder.girder.girder_number, position: girder.girder.position })),
     openFindings: findingsAsApplied(sources.openFindings, sources.girders.map((girder) => girder.id), []),
-    vehicles: sources.vehicles.map((row) => ({ id: row.id, version: row.version, name: row.definition.name ?? row.id, category: row.definition.category ?? null })),
+    vehicles: sources.vehicles.map(vehicleSummary),
     policies: sources.policies.map((row) => ({ id: row.id, version: row.version, name: row.definition.name ?? row.id })),
-    ratingOfRecord: ofRecord?.reviewed_at
-      ? { id: ofRecord.id, lowestLegalRf: ofRecord.lowest_legal_rf, lowestInventoryRf: ofRecord.lowest_inventory_rf, approvedAt: ofRecord.reviewed_at.toISOString() }
-      : null,
+    ratingOfRecord: ofRecordFigures(ofRecord),
     reratingDue: await spanReratingDue(db, spanId),
   };
 }

@@ -23,6 +23,7 @@ import {
 import { GirdersClient } from '../girders/girders.client';
 import { schemaProblems, type FieldProblem } from '../structures/field-problems';
 import { MeasureInputDirective } from '../units/measure-input.directive';
+import { whatIfText } from './rating-text';
 import { UnitsStore } from '../units/units.store';
 
 /** Vehicles a new rating checks unless the rater changes it: the design load and the legal loads. */
@@ -99,15 +100,10 @@ export class RatingChoicesComponent {
     })),
   );
 
-  protected readonly whatIfTexts = computed(() =>
-    this.whatIfs().map((whatIf) => {
-      const girder = this.setup().girders.find((each) => each.id === whatIf.girderId);
-      const entry = whatIf.entry;
-      const strands = 'count' in entry && entry.count !== undefined ? `${entry.count} lost strand${entry.count === 1 ? '' : 's'} in row ${'rowId' in entry ? entry.rowId : ''}` : entry.kind;
-      const place = entry.fromM !== undefined && entry.toM !== undefined ? ` from ${this.units.format('spanLength', entry.fromM, { withUnit: true })} to ${this.units.format('spanLength', entry.toM, { withUnit: true })}` : '';
-      return `Girder ${girder?.girderNumber ?? whatIf.girderId}: ${strands}${place}${whatIf.note ? ` — ${whatIf.note}` : ''}`;
-    }),
-  );
+  protected readonly whatIfTexts = computed(() => {
+    const length = (metres: number) => this.units.format('spanLength', metres, { withUnit: true });
+    return this.whatIfs().map((whatIf) => whatIfText(whatIf, this.setup().girders.find((each) => each.id === whatIf.girderId)?.girderNumber, length));
+  });
 
   constructor() {
     effect(() => {

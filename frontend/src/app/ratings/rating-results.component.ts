@@ -5,7 +5,7 @@ import { FINDING_KIND_NAMES, type RatingDetail } from '@spanledger/shared';
 
 import { UnitsStore } from '../units/units.store';
 import { RatingChartComponent } from './rating-chart.component';
-import { ratingCaseText, ratingChangeText, ratingFactorText } from './rating-text';
+import { ratingCaseText, ratingChangeText, ratingFactorText, whatIfText } from './rating-text';
 
 interface Figure {
   readonly key: string;
@@ -113,12 +113,8 @@ export class RatingResultsComponent {
     })),
   );
 
-  protected readonly whatIfTexts = computed(() =>
-    this.rating().run.hypothetical.map((whatIf) => {
-      const girder = this.rating().girders.find((each) => each.girderId === whatIf.girderId);
-      const entry = whatIf.entry;
-      const what = 'count' in entry && entry.count !== undefined ? `${entry.count} lost strands in row ${'rowId' in entry ? entry.rowId : ''}` : entry.kind;
-      return `Girder ${girder?.girderNumber ?? whatIf.girderId}: ${what}${whatIf.note ? ` — ${whatIf.note}` : ''}`;
-    }),
-  );
+  protected readonly whatIfTexts = computed(() => {
+    const length = (metres: number) => this.units.format('spanLength', metres, { withUnit: true });
+    return this.rating().run.hypothetical.map((whatIf) => whatIfText(whatIf, this.rating().girders.find((each) => each.girderId === whatIf.girderId)?.girderNumber, length));
+  });
 }

@@ -1,4 +1,4 @@
-import type { ControllingRating, RatingFigures } from '@spanledger/shared';
+import type { ControllingRating, HypotheticalDamage, RatingFigures } from '@spanledger/shared';
 
 /** Rating factors are read to two decimals, as they are compared with 1.0. */
 export function ratingFactorText(ratingFactor: number | null): string {
@@ -34,3 +34,14 @@ export function momentText(isoDateTime: string): string {
 
 /** Whether the figures put a legal load below 1.0: the structure needs a posting decision. */
 export const belowLegal = (figures: RatingFigures) => figures.lowestLegalRf !== null && figures.lowestLegalRf < 1;
+
+/**
+ * A what-if damage entry in words, e.g. "Girder 2: 3 lost strands in row r1 from 5.00 m to 6.00 m
+ * — if the strike had cut three strands"; lengths through the caller's unit formatting.
+ */
+export function whatIfText(whatIf: HypotheticalDamage, girderNumber: number | undefined, length: (metres: number) => string): string {
+  const { entry } = whatIf;
+  const what = 'count' in entry && entry.count !== undefined ? `${entry.count} lost strand${entry.count === 1 ? '' : 's'} in row ${'rowId' in entry ? entry.rowId : ''}` : entry.kind;
+  const place = entry.fromM !== undefined && entry.toM !== undefined ? ` from ${length(entry.fromM)} to ${length(entry.toM)}` : '';
+  return `Girder ${girderNumber ?? whatIf.girderId}: ${what}${place}${whatIf.note ? ` — ${whatIf.note}` : ''}`;
+}

@@ -11,6 +11,7 @@ import { RESULT_CAUTION, STRUCTURE_STATUS_NAMES, canInDistrict, type SpanDetail,
 import { Observable, Subject, catchError, map, of, switchMap } from 'rxjs';
 
 import { StructureInspectionsComponent } from '../inspections/structure-inspections.component';
+import { ratingFactorText } from '../ratings/rating-text';
 import { StructureRatingsComponent } from '../ratings/structure-ratings.component';
 import { describeServerError, serverErrorReport } from '../server-errors/server-error';
 import { SessionStore } from '../session/session.store';
@@ -207,10 +208,6 @@ function loaded<T>(answer$: Observable<T>, failure: string): Observable<Loaded<T
       return of<Loaded<T>>({ ok: false, message: `${failure} ${reason}` });
     }),
   );
-}
-
-function ratingFactorText(ratingFactor: number | null): string {
-  return ratingFactor === null ? 'Not rated' : ratingFactor.toFixed(2);
 }
 
 function orDash(value: number | null): string {
