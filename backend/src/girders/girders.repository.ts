@@ -1,5 +1,6 @@
 import type { StoredGirder } from './girder-calc-file';
 import type { Database, Transaction } from '../db/database';
+import { inChunks } from '../db/many-created';
 
 /** A girder of a span with what its list shows: its type's name and its strand rows counted. */
 export interface GirderListRow {
@@ -173,14 +174,14 @@ export async function findGirderById(db: Database | Transaction, id: number, { f
 /** The girders of these spans, by span and number. */
 export async function findGirdersOfSpans(db: Database | Transaction, spanIds: readonly number[]): Promise<GirderRow[]> {
   if (spanIds.length === 0) return [];
-  return girdersWithPlace(db).whereIn('g.span_id', spanIds).orderBy(['g.span_id', 'g.girder_number']);
+  return girdersWithPlace(db).whereRaw('g.span_id = any(?)', [[...spanIds]]).orderBy(['g.span_id', 'g.girder_number']);
 }
 
 /** The strand rows of these girders in order, by girder id. */
 export async function findStrandRowsOfGirders(db: Database | Transaction, girderIds: readonly number[]): Promise<Map<number, StrandRowRecord[]>> {
   const byGirder = new Map<number, StrandRowRecord[]>(girderIds.map((id) => [id, []]));
   if (girderIds.length === 0) return byGirder;
-  const rows: (StrandRowRecord & { girder_id: number })[] = await db('strand_rows').whereIn('girder_id', girderIds).orderBy(['girder_id', 'row_order']).select('girder_id', ...STRAND_ROW_COLUMNS);
+  const rows: (StrandRowRecord & { girder_id: number })[] = await db('strand_rows').whereRaw('girder_id = any(?)', [[...girderIds]]).orderBy(['girder_id', 'row_order']).select('girder_id', ...STRAND_ROW_COLUMNS);
   for (const { girder_id: girderId, ...row } of rows) byGirder.get(girderId)!.push(row);
   return byGirder;
 }
@@ -207,17 +208,45 @@ function girderValues(columns: GirderColumns): Record<string, unknown> {
 }
 
 async function insertStrandRows(trx: Transaction, girderId: number, strandRows: readonly StrandRowRecord[], userId: number): Promise<void> {
-  if (strandRows.length === 0) return;
-  await trx('strand_rows').insert(strandRows.map((row, rowOrder) => ({ ...row, girder_id: girderId, row_order: rowOrder, created_by: userId, updated_by: userId })));
+  await insertStrandRowsOfGirders(trx, [{ girderId, strandRows }], userId);
+}
+
+/** Strand rows of many girders in a few statements, each girder's in the order given. */
+async function insertStrandRowsOfGirders(trx: Transaction, girders: readonly { girderId: number; strandRows: readonly StrandRowRecord[] }[], userId: number): Promise<void> {
+  const values = girders.flatMap(({ girderId, strandRows }) => strandRows.map((row, rowOrder) => ({ ...row, girder_id: girderId, row_order: rowOrder, created_by: userId, updated_by: userId })));
+  for (const chunk of inChunks(values, ROWS_PER_INSERT)) await trx('strand_rows').insert(chunk);
 }
 
 export async function insertGirder(trx: Transaction, spanId: number, girderNumber: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<number> {
-  const [row] = await trx('girders')
-    .insert({ ...girderValues(columns), span_id: spanId, girder_number: girderNumber, created_by: userId, updated_by: userId })
-    .returning('id');
-  const id = (row as { id: number }).id;
-  await insertStrandRows(trx, id, strandRows, userId);
-  return id;
+  const [id] = await insertGirders(trx, [{ spanId, girderNumber, columns, strandRows }], userId);
+  return id!;
+}
+
+/** A girder to insert: where it goes and what it holds. */
+export interface GirderInsert {
+  readonly spanId: number;
+  readonly girderNumber: number;
+  readonly columns: GirderColumns;
+  readonly strandRows: readonly StrandRowRecord[];
+}
+
+/** Rows per insert statement: a girder row has fewer than 20 columns, so this stays far under 65 535 parameters. */
+const ROWS_PER_INSERT = 1000;
+
+/** Inserts girders with their strand rows in a few statements; gives back their ids in the order given. */
+export async function insertGirders(trx: Transaction, girders: readonly GirderInsert[], userId: number): Promise<number[]> {
+  const ids: number[] = [];
+  for (const chunk of inChunks(girders, ROWS_PER_INSERT)) {
+    const inserted: { id: number; span_id: number; girder_number: number }[] = await trx('girders')
+      .insert(chunk.map((girder) => ({ ...girderValues(girder.columns), span_id: girder.spanId, girder_number: girder.girderNumber, created_by: userId, updated_by: userId })))
+      .returning(['id', 'span_id', 'girder_number']);
+    // Matched by (span, number), which is unique, rather than trusting the order RETURNING gives.
+    const idOf = new Map(inserted.map((row) => [`${row.span_id}/${row.girder_number}`, row.id]));
+    const chunkIds = chunk.map((girder) => idOf.get(`${girder.spanId}/${girder.girderNumber}`)!);
+    await insertStrandRowsOfGirders(trx, chunk.map((girder, index) => ({ girderId: chunkIds[index]!, strandRows: girder.strandRows })), userId);
+    ids.push(...chunkIds);
+  }
+  return ids;
 }
 
 export async function updateGirder(trx: Transaction, id: number, expectedVersion: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<boolean> {

@@ -10,14 +10,15 @@ import {
   type StrandRow,
 } from '../../../shared/src';
 import type { Transaction } from '../db/database';
+import { inChunks } from '../db/many-created';
 import { toGirderRecord } from '../girders/girder-record';
 import { findGirderById, findGirdersOfSpans, findGirderTypes, findStrandRows } from '../girders/girders.repository';
-import { changeGirder, createGirder } from '../girders/girders.service';
+import { changeGirder, createGirder, createGirders, type NewGirder } from '../girders/girders.service';
 import { AppError } from '../http/app-error';
-import { findSpansOfStructure, recountGirders } from '../spans/spans.repository';
-import { changeSpan, createSpan, type NewSpanFields } from '../spans/spans.service';
+import { findSpansOfStructure, findSpansOfStructures, recountGirders } from '../spans/spans.repository';
+import { changeSpan, createSpan, createSpans, type NewSpan, type NewSpanFields } from '../spans/spans.service';
 import { findStructuresByNumbers } from '../structures/structures.repository';
-import { changeStructure, createStructure } from '../structures/structures.service';
+import { changeStructure, createStructure, createStructures } from '../structures/structures.service';
 
 /** Templates in the order their rows are written: each after what it hangs on. */
 const WRITE_ORDER: readonly ImportTemplateName[] = ['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings'];
@@ -45,7 +46,12 @@ function fileFacts(rows: readonly AnyConvertedRow[]) {
   const strandRowsOfGirder = new Map<string, StrandRow[]>();
   for (const row of rows) {
     if (row.template === 'girders') girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
-    if (row.template === 'strand-rows') strandRowsOfGirder.set(girderKey(row.body), [...(strandRowsOfGirder.get(girderKey(row.body)) ?? []), row.body.strandRow]);
+    if (row.template === 'strand-rows') {
+      const key = girderKey(row.body);
+      const known = strandRowsOfGirder.get(key);
+      if (known) known.push(row.body.strandRow);
+      else strandRowsOfGirder.set(key, [row.body.strandRow]);
+    }
   }
   return { girdersPerSpan, strandRowsOfGirder };
 }
@@ -113,10 +119,19 @@ async function writeSpan(writer: Writer, row: ConvertedRow<'spans'>): Promise<vo
     writer.written.spans.set(spanKey(row.body), stored.id);
     return;
   }
+  const created = await createSpan({ db: writer.trx, user: writer.user }, id, spanIndex, newSpanFields(row), girdersOfNewSpan(writer, row));
+  writer.written.spans.set(spanKey(row.body), created.id);
+}
+
+function newSpanFields(row: ConvertedRow<'spans'>): NewSpanFields {
+  return { ...NEW_SPAN_DEFAULTS, ...row.body.span } as NewSpanFields;
+}
+
+/** How many girders a new span gets: those of the same file, at least two. */
+function girdersOfNewSpan(writer: Writer, row: ConvertedRow<'spans'>): number {
   const girderCount = writer.facts.girdersPerSpan.get(spanKey(row.body)) ?? 0;
   if (girderCount < 2) throw AppError.invalidFields([{ field: row.keyColumns, message: 'a new span needs its girders (at least two) in the same file' }]);
-  const created = await createSpan({ db: writer.trx, user: writer.user }, id, spanIndex, { ...NEW_SPAN_DEFAULTS, ...span } as NewSpanFields, girderCount);
-  writer.written.spans.set(spanKey(row.body), created.id);
+  return girderCount;
 }
 
 function recordOf(writer: Writer, row: ConvertedRow<'girders'>, strandRows: GirderRecord['strandRows']): GirderRecord {
@@ -154,12 +169,112 @@ async function writeStrandRows(writer: Writer, row: ConvertedRow<'strand-rows'>,
 }
 
 /**
+ * New records are written many at a time: a file of tens of thousands of girders would take
+ * minutes row by row. Each batch goes through the services' own `create…s`, on the same rules
+ * as one record through the API.
+ */
+const ROWS_PER_BATCH = 2000;
+
+/** A template's rows, split into those new to the register (written in batches here) and those to write one by one (changes). */
+type NewRowsWriter = (writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void) => Promise<AnyConvertedRow[]>;
+
+async function writeNewStructures(writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void): Promise<AnyConvertedRow[]> {
+  const structureRows = rows as readonly ConvertedRow<'structures'>[];
+  const stored = new Set((await findStructuresByNumbers(writer.trx, structureRows.map((row) => row.body.structureNumber))).map((row) => row.structure_number));
+  const fresh = structureRows.filter((row) => !stored.has(row.body.structureNumber));
+  const created = await createStructures({ db: writer.trx, user: writer.user }, fresh.map((row) => row.body));
+  fresh.forEach((row, index) => {
+    const id = created.ids[index];
+    if (id) writer.written.structures.set(row.body.structureNumber, id);
+    else refuse(row, created.refused.get(index)!);
+  });
+  return structureRows.filter((row) => stored.has(row.body.structureNumber));
+}
+
+/** Register ids of the structures these rows name (written by the file or already stored); a row naming an unknown one is refused. */
+async function knownStructureIds(writer: Writer, structureNumbers: readonly string[]): Promise<void> {
+  const unknown = [...new Set(structureNumbers)].filter((number) => !writer.written.structures.has(number));
+  for (const row of await findStructuresByNumbers(writer.trx, unknown)) writer.written.structures.set(row.structure_number, row.id);
+}
+
+async function writeNewSpans(writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void): Promise<AnyConvertedRow[]> {
+  const spanRows = rows as readonly ConvertedRow<'spans'>[];
+  await knownStructureIds(writer, spanRows.map((row) => row.body.structureNumber));
+  const structureIds = [...new Set(spanRows.flatMap((row) => writer.written.structures.get(row.body.structureNumber) ?? []))];
+  const storedSpans = new Set((await findSpansOfStructures(writer.trx, structureIds)).map((span) => `${span.structure_id}/${span.span_index}`));
+  const isStored = (row: ConvertedRow<'spans'>) => storedSpans.has(`${writer.written.structures.get(row.body.structureNumber)}/${row.body.spanIndex}`);
+  const fresh: { row: ConvertedRow<'spans'>; span: NewSpan }[] = [];
+  for (const row of spanRows) {
+    if (isStored(row)) continue;
+    try {
+      const structureRowId = writer.written.structures.get(row.body.structureNumber);
+      if (structureRowId === undefined) throw AppError.invalidFields([{ field: 'structure_number', message: `structure ${row.body.structureNumber} is not in the register` }]);
+      fresh.push({ row, span: { structureId: structureRowId, spanIndex: row.body.spanIndex, fields: newSpanFields(row), girderCount: girdersOfNewSpan(writer, row) } });
+    } catch (error) {
+      if (!(error instanceof AppError)) throw error;
+      refuse(row, error);
+    }
+  }
+  const created = await createSpans({ db: writer.trx, user: writer.user }, fresh.map((each) => each.span));
+  fresh.forEach(({ row }, index) => {
+    const id = created.ids[index];
+    if (id) writer.written.spans.set(spanKey(row.body), id);
+    else refuse(row, created.refused.get(index)!);
+  });
+  return spanRows.filter(isStored);
+}
+
+async function writeNewGirders(writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void): Promise<AnyConvertedRow[]> {
+  const girderRows = rows as readonly ConvertedRow<'girders'>[];
+  await knownSpanIds(writer, girderRows.map((row) => row.body));
+  const spanIds = [...new Set(girderRows.flatMap((row) => writer.written.spans.get(spanKey(row.body)) ?? []))];
+  const storedGirders = new Set((await findGirdersOfSpans(writer.trx, spanIds)).map((girder) => `${girder.span_id}/${girder.girder_number}`));
+  const isStored = (row: ConvertedRow<'girders'>) => storedGirders.has(`${writer.written.spans.get(spanKey(row.body))}/${row.body.girderNumber}`);
+  const fresh: { row: ConvertedRow<'girders'>; girder: NewGirder }[] = [];
+  for (const row of girderRows) {
+    if (isStored(row)) continue;
+    try {
+      const spanRowId = writer.written.spans.get(spanKey(row.body));
+      if (spanRowId === undefined) throw AppError.invalidFields([{ field: 'span_index', message: `structure ${row.body.structureNumber} has no span ${row.body.spanIndex}` }]);
+      fresh.push({ row, girder: { spanId: spanRowId, girderNumber: row.body.girderNumber, record: recordOf(writer, row, writer.facts.strandRowsOfGirder.get(girderKey(row.body)) ?? []) } });
+    } catch (error) {
+      if (!(error instanceof AppError)) throw error;
+      refuse(row, error);
+    }
+  }
+  const created = await createGirders({ db: writer.trx, user: writer.user }, fresh.map((each) => each.girder));
+  fresh.forEach(({ row, girder }, index) => {
+    const id = created.ids[index];
+    if (!id) return refuse(row, created.refused.get(index)!);
+    writer.written.girders.set(girderKey(row.body), id);
+    writer.spansGainingGirders.add(girder.spanId);
+  });
+  return girderRows.filter(isStored);
+}
+
+/** Register ids of the spans these keys name (written by the file or already stored). */
+async function knownSpanIds(writer: Writer, keys: readonly { structureNumber: string; spanIndex: number }[]): Promise<void> {
+  await knownStructureIds(writer, keys.map((key) => key.structureNumber));
+  const unknownStructures = [...new Set(keys.filter((key) => !writer.written.spans.has(spanKey(key))).flatMap((key) => writer.written.structures.get(key.structureNumber) ?? []))];
+  const numberOf = new Map([...writer.written.structures].map(([number, id]) => [id, number]));
+  for (const span of await findSpansOfStructures(writer.trx, unknownStructures)) {
+    writer.written.spans.set(spanKey({ structureNumber: numberOf.get(span.structure_id)!, spanIndex: span.span_index }), span.id);
+  }
+}
+
+const NEW_ROWS_WRITERS: Partial<Record<ImportTemplateName, NewRowsWriter>> = {
+  structures: writeNewStructures,
+  spans: writeNewSpans,
+  girders: writeNewGirders,
+};
+
+/**
  * Writes the checked rows through the same services as the API, so every rule, right and
- * history entry applies, inside the caller's transaction. A row a service refuses becomes a
- * problem at that row; the caller rolls everything back when there is any.
+ * history entry applies, inside the caller's transaction: records new to the register in
+ * batches, changes one by one. A row a service refuses becomes a problem at that row; the
+ * caller rolls everything back when there is any.
  */
 export async function writeRows(trx: Transaction, user: SignedInUser, rows: readonly AnyConvertedRow[], onProgress: CommitProgress): Promise<ImportProblem[]> {
-  const ordered = WRITE_ORDER.flatMap((template) => rows.filter((row) => row.template === template));
   const writer: Writer = {
     trx,
     user,
@@ -168,18 +283,27 @@ export async function writeRows(trx: Transaction, user: SignedInUser, rows: read
     girderTypeIds: new Map((await findGirderTypes(trx)).map((type) => [type.name.toLowerCase(), type.id])),
     spansGainingGirders: new Set(),
   };
-  const strandRowsDone = new Set<string>();
   const problems: ImportProblem[] = [];
-  for (const [index, row] of ordered.entries()) {
-    try {
-      await writeRow(writer, row, strandRowsDone);
-    } catch (error) {
-      if (!(error instanceof AppError)) throw error;
-      problems.push(...problemsOf(row, error));
+  const refuse = (row: AnyConvertedRow, error: AppError) => problems.push(...problemsOf(row, error));
+  const strandRowsDone = new Set<string>();
+  let done = 0;
+  for (const template of WRITE_ORDER) {
+    const ofTemplate = rows.filter((row) => row.template === template);
+    for (const batch of inChunks(ofTemplate, ROWS_PER_BATCH)) {
+      const oneByOne = (await NEW_ROWS_WRITERS[template]?.(writer, batch, refuse)) ?? batch;
+      for (const row of oneByOne) {
+        try {
+          await writeRow(writer, row, strandRowsDone);
+        } catch (error) {
+          if (!(error instanceof AppError)) throw error;
+          refuse(row, error);
+        }
+      }
+      done += batch.length;
+      await onProgress(done, rows.length);
     }
-    await onProgress(index + 1, ordered.length);
   }
-  if (problems.length === 0) for (const spanRowId of writer.spansGainingGirders) await recountGirders(trx, spanRowId);
+  if (problems.length === 0) await recountGirders(trx, [...writer.spansGainingGirders]);
   return problems;
 }
 

@@ -1,5 +1,6 @@
 import type { Knex } from 'knex';
 import type { SpanDetail } from '../../../shared/src';
+import { inChunks } from '../db/many-created';
 import type { Database, Transaction } from '../db/database';
 
 type Db = Database | Transaction;
@@ -43,7 +44,7 @@ export async function findSpansOfStructure(db: Db, structureId: number): Promise
 /** The spans of these structures, by structure and index. */
 export async function findSpansOfStructures(db: Db, structureIds: readonly number[]): Promise<SpanRow[]> {
   if (structureIds.length === 0) return [];
-  return spansWithStamps(db).whereIn('sp.structure_id', structureIds).orderBy(['sp.structure_id', 'sp.span_index']);
+  return spansWithStamps(db).whereRaw('sp.structure_id = any(?)', [[...structureIds]]).orderBy(['sp.structure_id', 'sp.span_index']);
 }
 
 export async function findSpanById(db: Db, id: number, { forUpdate = false } = {}): Promise<SpanRow | undefined> {
@@ -55,9 +56,13 @@ export async function findSpanById(db: Db, id: number, { forUpdate = false } = {
 /** JSON columns go to the driver as text: node-postgres would write a JavaScript array as a PostgreSQL array. */
 const JSON_COLUMNS = new Set(['wearing_surface', 'barriers', 'diaphragms']);
 
+function spanValues(columns: SpanColumns): Record<string, unknown> {
+  return Object.fromEntries(Object.entries(columns).map(([column, value]) => [column, JSON_COLUMNS.has(column) && value !== null ? JSON.stringify(value) : value]));
+}
+
 /** Writes the changed columns when the row still has the version the change was made from; false when it has moved on. */
 export async function updateSpan(trx: Transaction, id: number, expectedVersion: number, columns: SpanColumns, userId: number): Promise<boolean> {
-  const values = Object.fromEntries(Object.entries(columns).map(([column, value]) => [column, JSON_COLUMNS.has(column) && value !== null ? JSON.stringify(value) : value]));
+  const values = spanValues(columns);
   const updated = await trx('spans')
     .where({ id, version: expectedVersion })
     .update({ ...values, version: trx.raw('version + 1'), updated_by: userId, updated_at: trx.fn.now() });
@@ -65,15 +70,49 @@ export async function updateSpan(trx: Transaction, id: number, expectedVersion: 
 }
 
 /** A new span of a structure, simply supported; its girder count follows the girders written with it. */
-export async function insertSpan(trx: Transaction, structureId: number, spanIndex: number, columns: Required<SpanColumns>, girderCount: number, userId: number): Promise<number> {
-  const values = Object.fromEntries(Object.entries(columns).map(([column, value]) => [column, JSON_COLUMNS.has(column) && value !== null ? JSON.stringify(value) : value]));
-  const [row] = await trx('spans')
-    .insert({ ...values, structure_id: structureId, span_index: spanIndex, girder_count: girderCount, support_type: 'simple', created_by: userId, updated_by: userId })
-    .returning('id');
-  return (row as { id: number }).id;
+/** A span to insert: where it goes, its columns, how many girders it carries. */
+export interface SpanInsert {
+  readonly structureId: number;
+  readonly spanIndex: number;
+  readonly columns: Required<SpanColumns>;
+  readonly girderCount: number;
 }
 
-/** Sets a span's girder count to the girders stored on it. */
-export async function recountGirders(trx: Transaction, spanId: number): Promise<void> {
-  await trx.raw('update spans set girder_count = (select count(*) from girders where span_id = ?) where id = ?', [spanId, spanId]);
+/** Rows per insert statement: a span row has about 20 columns, so this stays far under 65 535 parameters. */
+const ROWS_PER_INSERT = 1000;
+
+/** Inserts simply supported spans in a few statements; gives back their ids in the order given. */
+export async function insertSpans(trx: Transaction, spans: readonly SpanInsert[], userId: number): Promise<number[]> {
+  const ids: number[] = [];
+  for (const chunk of inChunks(spans, ROWS_PER_INSERT)) {
+    const inserted: { id: number; structure_id: number; span_index: number }[] = await trx('spans')
+      .insert(
+        chunk.map((span) => ({
+          ...spanValues(span.columns),
+          structure_id: span.structureId,
+          span_index: span.spanIndex,
+          girder_count: span.girderCount,
+          support_type: 'simple',
+          created_by: userId,
+          updated_by: userId,
+        })),
+      )
+      .returning(['id', 'structure_id', 'span_index']);
+    // Matched by (structure, index), which is unique, rather than trusting the order RETURNING gives.
+    const idOf = new Map(inserted.map((row) => [`${row.structure_id}/${row.span_index}`, row.id]));
+    ids.push(...chunk.map((span) => idOf.get(`${span.structureId}/${span.spanIndex}`)!));
+  }
+  return ids;
+}
+
+/** Sets each span's girder count to the girders stored on it. */
+export async function recountGirders(trx: Transaction, spanIds: readonly number[]): Promise<void> {
+  if (spanIds.length === 0) return;
+  await trx.raw('update spans as sp set girder_count = (select count(*) from girders as g where g.span_id = sp.id) where sp.id = any(?)', [[...spanIds]]);
+}
+
+/** These spans, each with the district and skew of its structure (what writing girders on them is checked against). */
+export async function findSpansWithPlace(db: Db, ids: readonly number[]): Promise<(SpanRow & { district: string; skew_deg: number })[]> {
+  if (ids.length === 0) return [];
+  return spansWithStamps(db).join({ s: 'structures' }, 's.id', 'sp.structure_id').select('s.district', 's.skew_deg').whereRaw('sp.id = any(?)', [[...ids]]);
 }

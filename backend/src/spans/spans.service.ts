@@ -1,12 +1,13 @@
 import type { SignedInUser, SpanChange, SpanDetail } from '../../../shared/src';
-import { recordAuditEvent } from '../audit/audit-events';
+import { recordAuditEvent, recordAuditEvents } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
-import { withTransaction, type Database } from '../db/database';
+import { withTransaction, type Database, type Transaction } from '../db/database';
+import { onlyCreatedId, type ManyCreated } from '../db/many-created';
 import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { AppError } from '../http/app-error';
-import { findStructureById } from '../structures/structures.repository';
+import { findDistrictsOfStructures, findStructureById } from '../structures/structures.repository';
 import { assertMayEditIn } from '../structures/structures.service';
-import { findSpanById, findSpansOfStructure, insertSpan, updateSpan, type SpanColumns, type SpanRow } from './spans.repository';
+import { findSpanById, findSpansOfStructure, insertSpans, updateSpan, type SpanColumns, type SpanRow } from './spans.repository';
 
 type SpanChangeFields = Omit<SpanChange, 'version'>;
 
@@ -106,14 +107,51 @@ export type NewSpanFields = Required<SpanChangeFields>;
  */
 export async function createSpan({ db, user }: { db: Database; user: SignedInUser }, structureId: number, spanIndex: number, fields: NewSpanFields, girderCount: number): Promise<SpanDetail> {
   return withTransaction(db, async (trx) => {
-    const structure = await findStructureById(trx, structureId);
-    if (!structure) throw AppError.notFound(`There is no structure with id ${structureId}`);
-    assertMayEditIn(user, structure.district);
-    assertDiaphragmsOnSpan(fields.lengthM, fields.diaphragms);
-    const columns = Object.fromEntries(Object.entries(COLUMN_OF).map(([field, column]) => [column, fields[field as keyof NewSpanFields]])) as unknown as Required<SpanColumns>;
-    const id = await insertSpan(trx, structureId, spanIndex, columns, girderCount, user.id);
-    await recordAuditEvent({ db: trx, user, action: 'span.created', entity: { type: 'span', id }, after: { structureId, spanIndex, ...fields } });
-    await markSpansReratingDue(trx, [id]);
+    const id = onlyCreatedId(await createSpans({ db: trx, user }, [{ structureId, spanIndex, fields, girderCount }]));
     return toSpanDetail((await findSpanById(trx, id))!);
   });
+}
+
+/** A span to add: the structure it goes on, its index there, its fields and how many girders it will carry. */
+export interface NewSpan {
+  readonly structureId: number;
+  readonly spanIndex: number;
+  readonly fields: NewSpanFields;
+  readonly girderCount: number;
+}
+
+/** Adds many spans on the rules of `createSpan`, reading their structures once and writing in a few statements; each refused span is named by its index. */
+export async function createSpans({ db, user }: { db: Database | Transaction; user: SignedInUser }, spans: readonly NewSpan[]): Promise<ManyCreated> {
+  return withTransaction(db, async (trx) => {
+    const districtOf = await findDistrictsOfStructures(trx, [...new Set(spans.map((span) => span.structureId))]);
+    const refused = new Map<number, AppError>();
+    const accepted: { index: number; span: NewSpan }[] = [];
+    spans.forEach((span, index) => {
+      try {
+        const district = districtOf.get(span.structureId);
+        if (district === undefined) throw AppError.notFound(`There is no structure with id ${span.structureId}`);
+        assertMayEditIn(user, district);
+        assertDiaphragmsOnSpan(span.fields.lengthM, span.fields.diaphragms);
+        accepted.push({ index, span });
+      } catch (error) {
+        if (!(error instanceof AppError)) throw error;
+        refused.set(index, error);
+      }
+    });
+    const ids = await insertSpans(trx, accepted.map(({ span }) => ({ ...span, columns: columnsOf(span.fields) })), user.id);
+    await recordAuditEvents(
+      trx,
+      user,
+      accepted.map(({ span: { structureId, spanIndex, fields } }, at) => ({ action: 'span.created', entity: { type: 'span', id: ids[at]! }, after: { structureId, spanIndex, ...fields } })),
+    );
+    // A new span is due for a rating from the start.
+    await markSpansReratingDue(trx, ids);
+    const idsInOrder: (number | null)[] = spans.map(() => null);
+    accepted.forEach((each, at) => (idsInOrder[each.index] = ids[at]!));
+    return { ids: idsInOrder, refused };
+  });
+}
+
+function columnsOf(fields: NewSpanFields): Required<SpanColumns> {
+  return Object.fromEntries(Object.entries(COLUMN_OF).map(([field, column]) => [column, fields[field as keyof NewSpanFields]])) as unknown as Required<SpanColumns>;
 }

@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { RATING_BANDS, type StructureListQuery, type StructureSortKey, type StructureStatus } from '../../../shared/src';
 import { postgis, type Database, type Transaction } from '../db/database';
+import { inChunks } from '../db/many-created';
 
 /** One row of `structures` with the location split into degrees and the change stamps' user names. */
 export interface StructureRow {
@@ -212,7 +213,7 @@ export async function findAllStructures(db: Db): Promise<StructureRow[]> {
 /** The structures with these owner's numbers, as `findStructureById` reads each. */
 export async function findStructuresByNumbers(db: Db, structureNumbers: readonly string[]): Promise<StructureRow[]> {
   if (structureNumbers.length === 0) return [];
-  return selectStructureColumns(db, structuresWithStamps(db)).whereIn('s.structure_number', structureNumbers);
+  return selectStructureColumns(db, structuresWithStamps(db)).whereRaw('s.structure_number = any(?)', [[...structureNumbers]]);
 }
 
 export async function findStructureById(db: Db, id: number, { forUpdate = false } = {}): Promise<StructureRow | undefined> {
@@ -241,15 +242,32 @@ export async function updateStructure(trx: Transaction, id: number, expectedVers
   return updated === 1;
 }
 
-export async function insertStructure(trx: Transaction, columns: Required<StructureColumns>, userId: number): Promise<number> {
-  const [row] = await trx('structures')
-    .insert({ ...columnsForWrite(trx, columns), created_by: userId, updated_by: userId })
-    .returning('id');
-  return (row as { id: number }).id;
+/** Rows per insert statement: a structure row has about 20 columns, so this stays far under 65 535 parameters. */
+const ROWS_PER_INSERT = 1000;
+
+/** Inserts structures in a few statements; gives back their ids in the order given. */
+export async function insertStructures(trx: Transaction, structures: readonly Required<StructureColumns>[], userId: number): Promise<number[]> {
+  const ids: number[] = [];
+  for (const chunk of inChunks(structures, ROWS_PER_INSERT)) {
+    const inserted: { id: number; structure_number: string }[] = await trx('structures')
+      .insert(chunk.map((columns) => ({ ...columnsForWrite(trx, columns), created_by: userId, updated_by: userId })))
+      .returning(['id', 'structure_number']);
+    // Matched by the owner's number, which is unique, rather than trusting the order RETURNING gives.
+    const idOf = new Map(inserted.map((row) => [row.structure_number, row.id]));
+    ids.push(...chunk.map((columns) => idOf.get(columns.structure_number)!));
+  }
+  return ids;
 }
 
 export async function structureNumberTaken(db: Db, structureNumber: string, exceptId?: number): Promise<boolean> {
   const query = db('structures').where({ structure_number: structureNumber }).first('id');
   if (exceptId !== undefined) query.whereNot({ id: exceptId });
   return (await query) !== undefined;
+}
+
+/** The district of each of these structures, by id (what decides who may change what hangs on them). */
+export async function findDistrictsOfStructures(db: Db, ids: readonly number[]): Promise<Map<number, string>> {
+  if (ids.length === 0) return new Map();
+  const rows: { id: number; district: string }[] = await db('structures').whereRaw('id = any(?)', [[...ids]]).select('id', 'district');
+  return new Map(rows.map((row) => [row.id, row.district]));
 }

@@ -8,8 +8,9 @@ import {
   type StructureFeatureCollection,
   type StructureListQuery,
 } from '../../../shared/src';
-import { recordAuditEvent } from '../audit/audit-events';
-import { withTransaction, type Database } from '../db/database';
+import { recordAuditEvent, recordAuditEvents } from '../audit/audit-events';
+import { withTransaction, type Database, type Transaction } from '../db/database';
+import { onlyCreatedId, type ManyCreated } from '../db/many-created';
 import { AppError } from '../http/app-error';
 import { findSpansOfStructure } from '../spans/spans.repository';
 import { changedFields, type FieldChanges } from '../audit/changed-fields';
@@ -17,7 +18,8 @@ import {
   findDistricts,
   findStructureById,
   findStructures,
-  insertStructure,
+  findStructuresByNumbers,
+  insertStructures,
   structureNumberTaken,
   updateStructure,
   type StructureColumns,
@@ -230,12 +232,34 @@ function assertMayDecideStatus(user: SignedInUser, district: string): void {
 
 /** Adds a structure to the register, in one of the user's districts; only a manager adds one already posted or closed. */
 export async function createStructure({ db, user }: Writer, structure: NewStructure): Promise<StructureDetail> {
-  assertMayEditIn(user, structure.district);
-  if (structure.status !== 'open') assertMayDecideStatus(user, structure.district);
   return withTransaction(db, async (trx) => {
-    await assertNumberFree(trx, structure.structureNumber);
-    const id = await insertStructure(trx, toColumns(structure) as Required<StructureColumns>, user.id);
-    await recordAuditEvent({ db: trx, user, action: 'structure.created', entity: { type: 'structure', id }, after: structure });
+    const id = onlyCreatedId(await createStructures({ db: trx, user }, [structure]));
     return toDetail(trx, (await findStructureById(trx, id))!);
+  });
+}
+
+/** Adds many structures on the rules of `createStructure`, checking their numbers in one query and writing in a few statements; each refused one is named by its index. */
+export async function createStructures({ db, user }: { db: Database | Transaction; user: SignedInUser }, structures: readonly NewStructure[]): Promise<ManyCreated> {
+  return withTransaction(db, async (trx) => {
+    const taken = new Set((await findStructuresByNumbers(trx, structures.map((structure) => structure.structureNumber))).map((row) => row.structure_number));
+    const refused = new Map<number, AppError>();
+    const accepted: { index: number; structure: NewStructure }[] = [];
+    structures.forEach((structure, index) => {
+      try {
+        assertMayEditIn(user, structure.district);
+        if (structure.status !== 'open') assertMayDecideStatus(user, structure.district);
+        if (taken.has(structure.structureNumber)) throw AppError.alreadyExists(`Structure number ${structure.structureNumber} is already in the register`, 'structureNumber');
+        taken.add(structure.structureNumber);
+        accepted.push({ index, structure });
+      } catch (error) {
+        if (!(error instanceof AppError)) throw error;
+        refused.set(index, error);
+      }
+    });
+    const ids = await insertStructures(trx, accepted.map(({ structure }) => toColumns(structure) as Required<StructureColumns>), user.id);
+    await recordAuditEvents(trx, user, accepted.map(({ structure }, at) => ({ action: 'structure.created', entity: { type: 'structure', id: ids[at]! }, after: structure })));
+    const idsInOrder: (number | null)[] = structures.map(() => null);
+    accepted.forEach((each, at) => (idsInOrder[each.index] = ids[at]!));
+    return { ids: idsInOrder, refused };
   });
 }
