@@ -24,6 +24,7 @@ import { libraryRouter } from './library/library.router';
 import { inspectionsRouter } from './inspections/inspections.router';
 import { ratingsRouter } from './ratings/ratings.router';
 import { importsRouter } from './imports/imports.router';
+import type { BackgroundJobs } from './jobs/background-jobs';
 import { alertsRouter } from './alerts/alerts.router';
 import { ObjectStorage } from './photos/object-storage';
 import { photosRouter } from './photos/photos.router';
@@ -32,13 +33,15 @@ export interface AppDependencies {
   readonly config: AppConfig;
   readonly db: Database;
   readonly logger: Logger;
+  /** The background job queue; without one (an app built alone in a test) every import is committed in its request. */
+  readonly jobs?: BackgroundJobs;
 }
 
 /**
  * The whole HTTP application: sign-in under /auth, the API under /api, the built front end
  * everywhere else. Every route declares who may use it; the app refuses to build otherwise.
  */
-export function createApp({ config, db, logger }: AppDependencies): Express {
+export function createApp({ config, db, logger, jobs }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('query parser', 'simple');
@@ -68,7 +71,7 @@ export function createApp({ config, db, logger }: AppDependencies): Express {
   const photoStorage = new ObjectStorage(config.objectStorage, logger);
   api.use(inspectionsRouter(db, photoStorage));
   api.use(ratingsRouter(db));
-  api.use(importsRouter(db, config.importSizeLimitBytes));
+  api.use(importsRouter(db, { sizeLimitBytes: config.importSizeLimitBytes, queue: jobs ? { jobs, backgroundFromBytes: config.importBackgroundFromBytes } : undefined }));
   api.use(alertsRouter(db));
   api.use(photosRouter({ db, storage: photoStorage, sizeLimitBytes: config.photoSizeLimitBytes }));
   api.use(networkRegisterRouter(db));

@@ -37,6 +37,7 @@ describe('loadConfig', () => {
       objectStorage: { endpoint: null, region: 'us-east-1', bucket: 'spanledger-photos', credentials: null, forcePathStyle: false },
       photoSizeLimitBytes: 10 * 1024 * 1024,
       importSizeLimitBytes: 50 * 1024 * 1024,
+      importBackgroundFromBytes: 512 * 1024,
     });
   });
 
@@ -60,6 +61,8 @@ describe('loadConfig', () => {
     expect(config.photoSizeLimitBytes).toBe(2 * 1024 * 1024);
     expect(loadConfig({ ...SIGN_IN, IMPORT_MAX_BYTES: '1048576' }).importSizeLimitBytes).toBe(1024 * 1024);
     expect(() => loadConfig({ ...SIGN_IN, IMPORT_MAX_BYTES: '10' })).toThrow(/IMPORT_MAX_BYTES/);
+    expect(loadConfig({ ...SIGN_IN, IMPORT_BACKGROUND_FROM_BYTES: '0' }).importBackgroundFromBytes).toBe(0);
+    expect(() => loadConfig({ ...SIGN_IN, IMPORT_BACKGROUND_FROM_BYTES: '-1' })).toThrow(/IMPORT_BACKGROUND_FROM_BYTES: must be 0 or more/);
     expect(loadConfig({ ...SIGN_IN, S3_ENDPOINT: 'https://objects.example.org', S3_FORCE_PATH_STYLE: 'false' }).objectStorage.forcePathStyle).toBe(false);
   });
 

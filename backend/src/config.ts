@@ -82,6 +82,12 @@ const configSchema = z.object({
     .min(1024, 'must be at least 1024')
     .max(1024 * 1024 * 1024, 'must be at most 1073741824 (1 GB)')
     .default(50 * 1024 * 1024),
+  /** From this size on, an import is committed by a background job with its progress shown (0: every commit); smaller files are committed in the request. */
+  IMPORT_BACKGROUND_FROM_BYTES: z.coerce
+    .number()
+    .int('must be a whole number of bytes')
+    .min(0, 'must be 0 or more')
+    .default(512 * 1024),
 });
 
 /** Names of the assertion attributes that carry each part of a user. */
@@ -135,6 +141,7 @@ export interface AppConfig {
   readonly objectStorage: ObjectStorageConfig;
   readonly photoSizeLimitBytes: number;
   readonly importSizeLimitBytes: number;
+  readonly importBackgroundFromBytes: number;
 }
 
 export class ConfigError extends Error {}
@@ -230,5 +237,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     },
     photoSizeLimitBytes: c.PHOTO_MAX_BYTES,
     importSizeLimitBytes: c.IMPORT_MAX_BYTES,
+    importBackgroundFromBytes: c.IMPORT_BACKGROUND_FROM_BYTES,
   };
 }

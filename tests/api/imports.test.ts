@@ -212,6 +212,7 @@ describe('imports API: checking an upload', () => {
 });
 
 describe('imports API: committing a checked upload', () => {
+  const BACKGROUND_FROM_BYTES = 60_000;
   const SAMPLES = path.join(__dirname, '../../data-import/samples');
   const sampleWorkbook = () => readFileSync(path.join(SAMPLES, 'west-district-inventory.xlsx'));
   let testDb: TestDatabase;
@@ -223,7 +224,8 @@ describe('imports API: committing a checked upload', () => {
     await seedDemoStructures(testDb.db);
     await seedDemoInventory(testDb.db);
     await seedDemoConditions(testDb.db);
-    bed = await startSignInTestBed(testDb.url);
+    // Files from 60 kB on are committed in the background: the samples stay in the request, the long files below go to the queue.
+    bed = await startSignInTestBed(testDb.url, { IMPORT_BACKGROUND_FROM_BYTES: String(BACKGROUND_FROM_BYTES) });
     for (const staff of Object.keys(STAFF) as Staff[]) {
       const client = new SignInClient(bed.server.url);
       await client.signInAs(STAFF[staff]);
@@ -307,6 +309,58 @@ describe('imports API: committing a checked upload', () => {
     expect(failed.state).toBe('failed');
     expect(failed.problems).toEqual([expect.objectContaining({ row: 2, message: expect.stringMatching(/South District/) })]);
     expect((await testDb.db('structures').where({ structure_number: 'BV-C-0972' }).first('name')).name).toBe('Added meanwhile');
+  });
+
+  /** A structures file of `count` new structures numbered from `first`, past the size from which commits run in the background. */
+  function longStructuresFile(first: number, count: number): string {
+    const rows = Array.from({ length: count }, (_, at) => structureRow({ structure_number: `BV-Q-${first + at}`, name: `Queued sample bridge number ${first + at} over the long creek` }));
+    const file = csvOf(...rows);
+    expect(file.length).toBeGreaterThan(BACKGROUND_FROM_BYTES);
+    return file;
+  }
+
+  async function untilDone(staff: Staff, id: number): Promise<{ detail: ImportDetail; progressSeen: { done: number; total: number }[] }> {
+    const progressSeen: { done: number; total: number }[] = [];
+    for (let attempt = 0; attempt < 300; attempt += 1) {
+      const detail = json<ImportDetail>(await clients.get(staff)!.request(`/api/imports/${id}`));
+      if (detail.state !== 'committing') return { detail, progressSeen };
+      progressSeen.push(detail.progress!);
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    throw new Error(`import ${id} is still committing after 30 s`);
+  }
+
+  it('commits a large file in a background job, showing its progress, and only once', async () => {
+    const file = longStructuresFile(10_000, 600);
+    const checked = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));
+    expect(checked).toMatchObject({ state: 'checked', problemCount: 0 });
+    const queued = await step('raterCentral', checked, 'commit');
+    expect(queued.status).toBe(202);
+    expect(json<ImportDetail>(queued)).toMatchObject({ state: 'committing', progress: { total: 600 }, allowed: { commit: false, discard: false } });
+    // While it is being written, a second commit of it is refused.
+    expect((await step('raterCentral', json<ImportDetail>(queued), 'commit')).status).toBe(409);
+
+    const { detail, progressSeen } = await untilDone('raterCentral', checked.id);
+    expect(detail).toMatchObject({ state: 'committed', committed: { by: expect.any(String) }, progress: null });
+    expect(progressSeen.every((progress) => progress.total === 600 && progress.done <= 600)).toBe(true);
+    const [stored] = await testDb.db('structures').where('structure_number', 'like', 'BV-Q-1%').count<{ count: string }[]>('* as count');
+    expect(Number(stored!.count)).toBe(600);
+    const jobs = await testDb.db.raw("select state from pgboss.job where name = 'import-commit' and data->>'importId' = ?", [String(checked.id)]);
+    expect(jobs.rows).toEqual([{ state: 'completed' }]);
+  });
+
+  it('fails a background commit the register has moved past, naming the row, and writes nothing of it', async () => {
+    const file = longStructuresFile(20_000, 600);
+    const checked = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));
+    // Meanwhile a manager adds the 300th structure in a district the rater may not change.
+    const added = await clients.get('managerNetwork')!.request('/api/structures', { json: { structureNumber: 'BV-Q-20299', name: 'Added meanwhile', routeCarried: 'Route 1', featureCrossed: 'Creek', district: 'South District', longitude: -97.5, latitude: 38.5 } });
+    expect(added.status).toBe(201);
+    expect((await step('raterCentral', checked, 'commit')).status).toBe(202);
+    const { detail } = await untilDone('raterCentral', checked.id);
+    expect(detail.state).toBe('failed');
+    expect(detail.problems).toEqual([expect.objectContaining({ row: 301, message: expect.stringMatching(/South District/) })]);
+    const [stored] = await testDb.db('structures').where('structure_number', 'like', 'BV-Q-2%').count<{ count: string }[]>('* as count');
+    expect(Number(stored!.count)).toBe(1);
   });
 
   it('sets a checked import aside for its uploader', async () => {

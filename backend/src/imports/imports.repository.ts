@@ -109,8 +109,8 @@ export async function findImportRows(db: Db, importId: number): Promise<AnyConve
 }
 
 /** The import row locked for a step, with who uploaded it. */
-export async function findImportForStep(trx: Transaction, id: number): Promise<Pick<ImportRow, 'id' | 'state' | 'version' | 'uploaded_by' | 'problem_count' | 'content_sha256'> | undefined> {
-  return trx({ i: 'imports' }).where('i.id', id).forUpdate().first('i.id', 'i.state', 'i.version', 'i.uploaded_by', 'i.problem_count', 'i.content_sha256');
+export async function findImportForStep(trx: Transaction, id: number): Promise<Pick<ImportRow, 'id' | 'state' | 'version' | 'uploaded_by' | 'problem_count' | 'content_sha256' | 'byte_size'> | undefined> {
+  return trx({ i: 'imports' }).where('i.id', id).forUpdate().first('i.id', 'i.state', 'i.version', 'i.uploaded_by', 'i.problem_count', 'i.content_sha256', 'i.byte_size');
 }
 
 export interface ImportStepColumns {
@@ -133,7 +133,12 @@ export async function updateImportState(db: Db, id: number, step: ImportStepColu
     });
 }
 
-/** Rows written so far by a commit in the background, written outside its transaction so others see it. */
+/** Rows written so far by a commit in the background, written outside its transaction so others see it, while it is still running. */
 export async function updateImportProgress(db: Db, id: number, done: number, total: number): Promise<void> {
-  await db('imports').where({ id }).update({ progress_done: done, progress_total: total });
+  await db('imports').where({ id, state: 'committing' }).update({ progress_done: done, progress_total: total });
+}
+
+export async function countImportRows(db: Db, importId: number): Promise<number> {
+  const [row] = await db('import_rows').where({ import_id: importId }).count<{ count: string }[]>('* as count');
+  return Number(row!.count);
 }

@@ -6,7 +6,7 @@ import { allow, signedInUser } from '../access/access-policy';
 import type { Database } from '../db/database';
 import { idFrom, parseRequest } from '../http/validate';
 import { receivedImportFile, receiveImportFile, removeReceivedFile } from './import-upload';
-import { checkImport, commitImport, discardImport, getImport, importProblemsCsv, listImports } from './imports.service';
+import { checkImport, commitImport, discardImport, getImport, importProblemsCsv, listImports, type CommitQueue } from './imports.service';
 
 const templateParameters = z.strictObject({
   name: z.enum(IMPORT_TEMPLATE_NAMES, `expected one of ${IMPORT_TEMPLATE_NAMES.join(', ')}`),
@@ -14,7 +14,7 @@ const templateParameters = z.strictObject({
 });
 
 /** Imports of spreadsheets: templates, the check of an upload, the history and its error reports. */
-export function importsRouter(db: Database, sizeLimitBytes: number): Router {
+export function importsRouter(db: Database, { sizeLimitBytes, queue }: { sizeLimitBytes: number; queue: CommitQueue | undefined }): Router {
   const router = Router();
 
   router.get('/import-templates/:name.:format', allow.signedIn, async (req, res) => {
@@ -46,7 +46,9 @@ export function importsRouter(db: Database, sizeLimitBytes: number): Router {
   router.post('/imports/:id/commit', allow.signedIn, async (req, res) => {
     const id = idFrom(req.params);
     const { version } = parseRequest(importStep, req.body, 'body field');
-    res.json(await commitImport({ db, user: signedInUser(req) }, id, version));
+    const detail = await commitImport({ db, user: signedInUser(req), queue }, id, version);
+    // 202: a large file is being written by a background job; its progress is on GET /api/imports/:id.
+    res.status(detail.state === 'committing' ? 202 : 200).json(detail);
   });
   router.post('/imports/:id/discard', allow.signedIn, async (req, res) => {
     const id = idFrom(req.params);

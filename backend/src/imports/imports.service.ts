@@ -2,10 +2,14 @@ import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, type AnyConvertedRow, type 
 import { recordAuditEvent } from '../audit/audit-events';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { AppError } from '../http/app-error';
+import type { BackgroundJobs } from '../jobs/background-jobs';
+import { toSignedInUser } from '../auth/auth.service';
+import { findUserById } from '../users/users.repository';
 import { judgeAgainstRegister, readAndConvert, templateNamed } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
-import { writeRows } from './import-commit';
+import { writeRows, type CommitProgress } from './import-commit';
 import {
+  countImportRows,
   findCommittedImportOfContent,
   findImportById,
   findImportForStep,
@@ -14,6 +18,7 @@ import {
   findImports,
   insertCheckedImport,
   insertImportRows,
+  updateImportProgress,
   updateImportState,
   type ImportRow,
 } from './imports.repository';
@@ -158,43 +163,108 @@ export interface CommitOptions {
   readonly afterRowsWritten?: () => void | Promise<void>;
 }
 
+/** Where a commit can be handed to the background, and from what file size it is. */
+export interface CommitQueue {
+  readonly jobs: BackgroundJobs;
+  readonly backgroundFromBytes: number;
+}
+
 /**
  * `POST /api/imports/:id/commit`: writes the checked rows through the inventory services in one
  * transaction — every rule, right and history entry applies, and the spans touched become due
  * for re-rating — or nothing at all: a row refused now (the register moved on since the check)
  * fails the import with its problems. The same file's bytes are committed once: a second commit
- * of them, even at the same moment, is refused by the database.
+ * of them, even at the same moment, is refused by the database. A file from the queue's size on
+ * is committed by a background job: the import answers `committing` with its progress at once.
  */
-export async function commitImport({ db, user }: Writer, id: number, version: number, options: CommitOptions = {}): Promise<ImportDetail> {
+export async function commitImport({ db, user, queue }: Writer & { queue?: CommitQueue }, id: number, version: number, options: CommitOptions = {}): Promise<ImportDetail> {
   let failure: ImportProblem[] = [];
   try {
     await withTransaction(db, async (trx) => {
       const row = await importForStep(trx, user, id, version);
       if (row.problem_count > 0) throw AppError.readOnly(`Import ${id} has problems: fix the file and upload it again`);
-      // Commits of the same bytes take turns, so the second finds the first done and is refused.
-      await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
-      const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
-      if (earlier) throw importedBefore(earlier);
-      const problems = await writeRows(trx, user, await findImportRows(trx, id), () => undefined);
-      await options.afterRowsWritten?.();
-      if (problems.length > 0) {
-        failure = problems;
-        throw new CommitRefused();
-      }
-      await updateImportState(trx, id, { state: 'committed', committed: true, progress: null }, user.id);
-      await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id }, after: { contentSha256: row.content_sha256 } });
+      if (queue && row.byte_size >= queue.backgroundFromBytes) return queueCommit(trx, queue.jobs, user, row);
+      await writeCommit(trx, user, row, () => undefined, options);
     });
   } catch (error) {
     if (isUniqueViolation(error)) throw alreadyImported(id);
     if (!(error instanceof CommitRefused)) throw error;
-    await updateImportState(db, id, { state: 'failed', problems: failure, progress: null }, user.id);
-    await recordAuditEvent({ db, user, action: 'import.failed', entity: { type: 'import', id }, after: { problemCount: failure.length } });
+    failure = error.problems;
+    await markFailed(db, user, id, failure);
   }
   return toDetail(db, (await findImportById(db, id))!, user);
 }
 
+/** Hands the commit to a background job in the same transaction: the import is `committing` exactly when the job exists. */
+async function queueCommit(trx: Transaction, jobs: BackgroundJobs, user: SignedInUser, row: { id: number }): Promise<void> {
+  const total = await countImportRows(trx, row.id);
+  await updateImportState(trx, row.id, { state: 'committing', progress: { done: 0, total } }, user.id);
+  await jobs.send('import-commit', { importId: row.id, userId: user.id }, trx);
+  await recordAuditEvent({ db: trx, user, action: 'import.queued', entity: { type: 'import', id: row.id }, after: { rows: total } });
+}
+
+/** The rows' writing and the import's `committed` state, inside the caller's transaction; refused rows throw `CommitRefused`. */
+async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: number; content_sha256: string }, onProgress: CommitProgress, options: CommitOptions = {}): Promise<void> {
+  // Commits of the same bytes take turns, so the second finds the first done and is refused.
+  await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
+  const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
+  if (earlier) throw importedBefore(earlier);
+  const problems = await writeRows(trx, user, await findImportRows(trx, row.id), onProgress);
+  await options.afterRowsWritten?.();
+  if (problems.length > 0) throw new CommitRefused(problems);
+  await updateImportState(trx, row.id, { state: 'committed', committed: true, progress: null }, user.id);
+  await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id: row.id }, after: { contentSha256: row.content_sha256 } });
+}
+
+async function markFailed(db: Database, user: SignedInUser, id: number, problems: readonly ImportProblem[]): Promise<void> {
+  await updateImportState(db, id, { state: 'failed', problems, progress: null }, user.id);
+  await recordAuditEvent({ db, user, action: 'import.failed', entity: { type: 'import', id }, after: { problemCount: problems.length } });
+}
+
+/** The progress a background commit shows is written at most this often: each write is a round trip outside the commit's transaction. */
+const PROGRESS_EVERY_MS = 250;
+
+/**
+ * The background job of a large commit: the same writing as a commit in the request, by the
+ * uploader, with its progress written outside the transaction so the Imports screen can show
+ * it. Anything that stops it fails the import with the reason; nothing of it is kept. A job
+ * given again after its server died finds the import still `committing` and starts over.
+ */
+export async function runQueuedCommit(db: Database, { importId, userId }: { importId: number; userId: number }): Promise<void> {
+  const row = await findImportById(db, importId);
+  const userRow = await findUserById(db, userId);
+  if (!row || row.state !== 'committing' || !userRow) return;
+  const user = toSignedInUser(userRow);
+  let lastWritten = 0;
+  const onProgress: CommitProgress = async (done, total) => {
+    if (Date.now() - lastWritten < PROGRESS_EVERY_MS && done < total) return;
+    lastWritten = Date.now();
+    await updateImportProgress(db, importId, done, total);
+  };
+  try {
+    await withTransaction(db, (trx) => writeCommit(trx, user, row, onProgress));
+  } catch (error) {
+    await markFailed(db, user, importId, problemsOfStoppedCommit(error));
+  }
+}
+
+/** Why a background commit stopped, as the import's problems: the refused rows, or one line saying what stopped it. */
+function problemsOfStoppedCommit(error: unknown): ImportProblem[] {
+  if (error instanceof CommitRefused) return error.problems;
+  const message = isUniqueViolation(error)
+    ? 'a file with the same bytes was imported at the same moment by another import'
+    : error instanceof AppError
+      ? error.message
+      : `the commit stopped: ${error instanceof Error ? error.message : String(error)}`;
+  return [{ sheet: '', row: 0, column: '', value: null, message: `${message}; nothing was written` }];
+}
+
 /** Rolls the commit's transaction back when rows were refused; the problems are kept outside it. */
-class CommitRefused extends Error {}
+class CommitRefused extends Error {
+  constructor(readonly problems: ImportProblem[]) {
+    super(`${problems.length} rows were refused`);
+  }
+}
 
 const isUniqueViolation = (error: unknown) => (error as { code?: unknown } | null)?.code === '23505';
 

@@ -28,3 +28,7 @@ export async function upsertSignedInUser(db: Database | Transaction, user: UserF
   if (!row) throw new Error('users upsert returned no row');
   return row;
 }
+
+export async function findUserById(db: Database | Transaction, id: number): Promise<UserRow | undefined> {
+  return db<UserRow>('users').where({ id }).first();
+}
