@@ -47,6 +47,19 @@ export const routes: Routes = [
     canActivate: [allowedTo('approveRatings')],
     loadComponent: () => import('./ratings/review-queue.page').then((m) => m.ReviewQueuePage),
   },
+  // The history and the templates are for everyone signed in; the page offers the upload to roles that import (templatesUserMayImport in shared/src/imports/rights.ts).
+  {
+    path: 'imports',
+    title: 'Imports · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./imports/imports.page').then((m) => m.ImportsPage),
+  },
+  {
+    path: 'imports/:id',
+    title: 'Import · Spanledger',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./imports/imports.page').then((m) => m.ImportsPage),
+  },
   {
     path: 'my-role',
     title: 'What my role can do · Spanledger',

@@ -11,6 +11,7 @@ import { SessionStore } from './session/session.store';
 
 const RATER: SignedInUser = { id: 7, email: 'r@example.org', displayName: 'Priya Halloran', role: 'rater', districts: ['Central District'], admin: false };
 const INSPECTOR: SignedInUser = { id: 3, email: 'i@example.org', displayName: 'Dana Whitcombe', role: 'inspector', districts: ['North District'], admin: false };
+const MANAGER: SignedInUser = { id: 11, email: 'm@example.org', displayName: 'Greer Ashdown', role: 'manager', districts: [], admin: false };
 
 describe('App shell', () => {
   async function toolbarText(answer: (server: HttpTestingController) => void): Promise<string[]> {
@@ -40,6 +41,29 @@ describe('App shell', () => {
     const rows = await toolbarText((server) => server.expectOne('api/session').flush({ user: INSPECTOR }));
     expect(rows[0]).toContain('Dana Whitcombe');
     expect(rows[0]).not.toContain('Ratings to review');
+  });
+
+  // The permission matrix gives every role a template to import: inspectors findings, raters and managers the inventory.
+  it.each([
+    ['an inspector', INSPECTOR],
+    ['a rating engineer', RATER],
+    ['a manager', MANAGER],
+  ])('links the imports for %s, who may import some template', async (_who, user) => {
+    TestBed.configureTestingModule({ imports: [App], providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    const fixture = TestBed.createComponent(App);
+    const loaded = TestBed.inject(SessionStore).load();
+    TestBed.inject(HttpTestingController).expectOne('api/session').flush({ user });
+    await loaded;
+    await fixture.whenStable();
+
+    const link = fixture.nativeElement.querySelector('[data-testid="nav-imports"]') as HTMLAnchorElement | null;
+    expect(link?.textContent?.trim()).toBe('Imports');
+    expect(link?.getAttribute('href')).toBe('/imports');
+  });
+
+  it('leaves the imports out for a visitor', async () => {
+    const rows = await toolbarText((server) => server.expectOne('api/session').flush({ user: null }));
+    expect(rows[0]).not.toContain('Imports');
   });
 
   it('offers the units switch to a signed-in user only', async () => {

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { IsActiveMatchOptions, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { ROLE_NAMES, changeScope } from '@spanledger/shared';
+import { ROLE_NAMES, changeScope, templatesUserMayImport } from '@spanledger/shared';
 
 import { AlertsButtonComponent } from './alerts/alerts-button.component';
 import { SessionStore } from './session/session.store';
@@ -25,6 +25,9 @@ import { UnitsSwitchComponent } from './units/units-switch.component';
           }
           @if (session.can('approveRatings')) {
             <a mat-button routerLink="/reviews" routerLinkActive="active" data-testid="nav-reviews">Ratings to review</a>
+          }
+          @if (mayImport()) {
+            <a mat-button routerLink="/imports" routerLinkActive="active" data-testid="nav-imports">Imports</a>
           }
           <a mat-button routerLink="/my-role" routerLinkActive="active">What my role can do</a>
         </nav>
@@ -54,6 +57,8 @@ export class App {
   protected readonly user = this.session.user;
   /** The map's filters live in its query string; the link is active whatever they are. */
   protected readonly mapLinkActive: IsActiveMatchOptions = { paths: 'exact', queryParams: 'ignored', matrixParams: 'ignored', fragment: 'ignored' };
+  /** Inspectors import findings, raters and managers the inventory: the link is for whoever may import some template. */
+  protected readonly mayImport = computed(() => templatesUserMayImport(this.user()).length > 0);
   protected readonly roleName = computed(() => {
     const user = this.user();
     return user ? `${ROLE_NAMES[user.role]}${user.admin ? ' (administrator)' : ''}` : '';

@@ -36,3 +36,4 @@ export {
 } from './upload-checks';
 export { addTemplateSheets, allColumnsMarkdown, templateColumnsMarkdown, templateCsv } from './templates';
 export { IMPORT_PROBLEMS_LISTED, IMPORT_STATES, importStep, IMPORT_STATE_NAMES, type ImportCounts, type ImportDetail, type ImportState, type ImportSummary } from './api';
+export { COLUMNS_SHEET_NAME, IMPORT_ACTION_OF, templateNamed, templateOfFileName, templatesUserMayImport } from './rights';

@@ -1,5 +1,6 @@
 import type { Workbook } from 'exceljs';
 import { IMPORT_TEMPLATES, IMPORT_TEMPLATE_NAMES, siToUs, type ImportColumn, type ImportTemplateName } from './columns';
+import { COLUMNS_SHEET_NAME } from './rights';
 
 /**
  * The downloadable templates, written from the column definitions so they cannot drift from
@@ -43,7 +44,7 @@ export function addTemplateSheets(workbook: Workbook, name: ImportTemplateName):
     if (column.type !== 'number' && column.type !== 'whole-number') sheetColumn.numFmt = '@';
   });
 
-  const about = workbook.addWorksheet('columns');
+  const about = workbook.addWorksheet(COLUMNS_SHEET_NAME);
   about.addRow(['column', 'required', 'unit', 'US customary column', 'description', 'example']).font = { bold: true };
   for (const column of template.columns) {
     about.addRow([column.header, column.required ? 'yes' : 'no', column.unit?.label ?? '', column.us?.header ?? '', column.description, column.example]);

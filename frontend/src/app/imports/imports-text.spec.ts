@@ -1,0 +1,19 @@
+import { countsSummary, problemCountText, problemValueText } from './imports-text';
+
+describe('imports text', () => {
+  it('sums up what an import held, template by template in the templates’ order', () => {
+    expect(countsSummary({ spans: { rows: 2, create: 2, update: 0, unchanged: 0 }, structures: { rows: 1_204, create: 1_200, update: 3, unchanged: 1 } })).toBe(
+      'Structures: 1,200 new, 3 changed, 1 unchanged; Spans: 2 new, 0 changed, 0 unchanged',
+    );
+    expect(countsSummary({})).toBe('No rows');
+  });
+
+  it('words problem counts and cell values for people', () => {
+    expect(problemCountText(1)).toBe('1 problem');
+    expect(problemCountText(2_500)).toBe('2,500 problems');
+    expect(problemValueText(null)).toBe('—');
+    expect(problemValueText('')).toBe('—');
+    expect(problemValueText(false)).toBe('false');
+    expect(problemValueText(0)).toBe('0');
+  });
+});
