@@ -1,7 +1,7 @@
 import ExcelJS from 'exceljs';
-import { Router } from 'express';
+import { Router, type Response } from 'express';
 import { z } from 'zod';
-import { addTemplateSheets, IMPORT_TEMPLATE_NAMES, importStep, templateCsv } from '../../../shared/src';
+import { addTemplateSheets, IMPORT_TEMPLATE_NAMES, importStep, templateCsv, type ImportTemplateName } from '../../../shared/src';
 import { allow, signedInUser } from '../access/access-policy';
 import type { Database } from '../db/database';
 import { idFrom, parseRequest } from '../http/validate';
@@ -13,20 +13,28 @@ const templateParameters = z.strictObject({
   format: z.enum(['csv', 'xlsx'], 'expected csv or xlsx'),
 });
 
+/** A template workbook of these templates as a download. */
+async function sendWorkbook(res: Response, fileName: string, names: readonly ImportTemplateName[]): Promise<void> {
+  const workbook = new ExcelJS.Workbook();
+  addTemplateSheets(workbook, names);
+  res.type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet').attachment(fileName);
+  res.send(Buffer.from(await workbook.xlsx.writeBuffer()));
+}
+
 /** Imports of spreadsheets: templates, the check of an upload, the history and its error reports. */
 export function importsRouter(db: Database, { sizeLimitBytes, queue }: { sizeLimitBytes: number; queue: CommitQueue | undefined }): Router {
   const router = Router();
 
+  router.get('/import-templates/all.xlsx', allow.signedIn, async (_req, res) => {
+    await sendWorkbook(res, 'spanledger-import-templates.xlsx', IMPORT_TEMPLATE_NAMES);
+  });
   router.get('/import-templates/:name.:format', allow.signedIn, async (req, res) => {
     const { name, format } = parseRequest(templateParameters, req.params, 'path parameter');
     if (format === 'csv') {
       res.type('text/csv').attachment(`${name}.csv`).send(templateCsv(name));
       return;
     }
-    const workbook = new ExcelJS.Workbook();
-    addTemplateSheets(workbook, name);
-    res.type('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet').attachment(`${name}.xlsx`);
-    res.send(Buffer.from(await workbook.xlsx.writeBuffer()));
+    await sendWorkbook(res, `${name}.xlsx`, [name]);
   });
   // Who may import which template is checked row by row against the matrix: inspectors bring findings, raters and managers inventory.
   router.post('/imports', allow.signedIn, receiveImportFile(sizeLimitBytes), async (req, res) => {

@@ -42,7 +42,7 @@ describe('templateCsv', () => {
 describe('addTemplateSheets', () => {
   it.each(IMPORT_TEMPLATE_NAMES)('%s: the XLSX written and read back gives an example row that converts', async (name) => {
     const written = new ExcelJS.Workbook();
-    addTemplateSheets(written, name);
+    addTemplateSheets(written, [name]);
     const buffer = await written.xlsx.writeBuffer();
     const read = new ExcelJS.Workbook();
     await read.xlsx.load(buffer as ArrayBuffer);
@@ -56,5 +56,15 @@ describe('addTemplateSheets', () => {
 
     const about = read.getWorksheet('columns')!;
     expect(about.rowCount).toBe(IMPORT_TEMPLATES[name].columns.length + 1);
+  });
+
+  it('writes every template into one workbook, in the templates’ order, with one sheet describing all their columns', async () => {
+    const written = new ExcelJS.Workbook();
+    addTemplateSheets(written, IMPORT_TEMPLATE_NAMES);
+    const read = new ExcelJS.Workbook();
+    await read.xlsx.load((await written.xlsx.writeBuffer()) as ArrayBuffer);
+    expect(read.worksheets.map((sheet) => sheet.name)).toEqual([...IMPORT_TEMPLATE_NAMES, 'columns']);
+    const described = IMPORT_TEMPLATE_NAMES.reduce((sum, name) => sum + IMPORT_TEMPLATES[name].columns.length, 0);
+    expect(read.getWorksheet('columns')!.rowCount).toBe(described + 1);
   });
 });

@@ -28,11 +28,23 @@ function exampleCell(column: ImportColumn): string | number | null {
 }
 
 /**
- * Adds one template to an exceljs workbook the caller made (`new ExcelJS.Workbook()`), so that
- * the shared code does not load exceljs in the browser: a sheet named after the template with
- * the header row and an example row, and a sheet `columns` describing each column.
+ * Adds templates to an exceljs workbook the caller made (`new ExcelJS.Workbook()`), so that the
+ * shared code does not load exceljs in the browser: for each, a sheet named after the template
+ * with the header row and an example row; then one sheet `columns` describing every column of
+ * them, which an upload skips.
  */
-export function addTemplateSheets(workbook: Workbook, name: ImportTemplateName): void {
+export function addTemplateSheets(workbook: Workbook, names: readonly ImportTemplateName[]): void {
+  for (const name of names) addTemplateSheet(workbook, name);
+  const about = workbook.addWorksheet(COLUMNS_SHEET_NAME);
+  about.addRow(['sheet', 'column', 'required', 'unit', 'US customary column', 'description', 'example']).font = { bold: true };
+  for (const name of names) {
+    for (const column of IMPORT_TEMPLATES[name].columns) {
+      about.addRow([name, column.header, column.required ? 'yes' : 'no', column.unit?.label ?? '', column.us?.header ?? '', column.description, column.example]);
+    }
+  }
+}
+
+function addTemplateSheet(workbook: Workbook, name: ImportTemplateName): void {
   const template = IMPORT_TEMPLATES[name];
   const sheet = workbook.addWorksheet(template.name);
   sheet.addRow(template.columns.map((column) => column.header)).font = { bold: true };
@@ -43,12 +55,6 @@ export function addTemplateSheets(workbook: Workbook, name: ImportTemplateName):
     // Text columns keep what is typed: a structure number 0012 stays 0012, a date stays YYYY-MM-DD.
     if (column.type !== 'number' && column.type !== 'whole-number') sheetColumn.numFmt = '@';
   });
-
-  const about = workbook.addWorksheet(COLUMNS_SHEET_NAME);
-  about.addRow(['column', 'required', 'unit', 'US customary column', 'description', 'example']).font = { bold: true };
-  for (const column of template.columns) {
-    about.addRow([column.header, column.required ? 'yes' : 'no', column.unit?.label ?? '', column.us?.header ?? '', column.description, column.example]);
-  }
 }
 
 /** The example converted to US customary units, rounded for reading. */

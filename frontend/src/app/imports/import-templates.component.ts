@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { IMPORT_TEMPLATES, IMPORT_TEMPLATE_NAMES, type ImportTemplateName } from '@spanledger/shared';
 
-import { templateDownloadUrl } from './imports.client';
+import { TEMPLATE_WORKBOOK_URL, templateDownloadUrl } from './imports.client';
 
 /** The empty templates to fill in, each as CSV and as XLSX; those the user's role may not import are marked. */
 @Component({
@@ -16,6 +16,8 @@ import { templateDownloadUrl } from './imports.client';
 export class ImportTemplatesComponent {
   /** The templates whose rows the signed-in user may import. */
   readonly importable = input.required<readonly ImportTemplateName[]>();
+
+  protected readonly workbookUrl = TEMPLATE_WORKBOOK_URL;
 
   protected readonly rows = computed(() =>
     IMPORT_TEMPLATE_NAMES.map((name) => {

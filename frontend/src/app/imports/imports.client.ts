@@ -58,6 +58,9 @@ export function templateDownloadUrl(template: ImportTemplateName, format: 'csv' 
   return `api/import-templates/${template}.${format}`;
 }
 
+/** Every template in one workbook, a sheet each, with one sheet describing their columns. */
+export const TEMPLATE_WORKBOOK_URL = 'api/import-templates/all.xlsx';
+
 /** Every problem of an import, a line each, for downloading. */
 export function problemsReportUrl(importId: number): string {
   return `api/imports/${importId}/problems.csv`;

@@ -98,6 +98,7 @@ describe('ImportsPage', () => {
     expect(all('import-template').map((row) => row.getAttribute('data-template'))).toEqual(['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings']);
     expect(all('template-csv').map((link) => link.getAttribute('href'))).toContain('api/import-templates/strand-rows.csv');
     expect(all('template-xlsx').map((link) => link.getAttribute('href'))).toContain('api/import-templates/girders.xlsx');
+    expect(element('template-workbook')!.getAttribute('href')).toBe('api/import-templates/all.xlsx');
     // A rating engineer imports inventory, findings and prior ratings alike.
     expect(all('template-not-yours')).toHaveLength(0);
     expect(element('import-file-input')).not.toBeNull();
