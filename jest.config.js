@@ -24,6 +24,7 @@ module.exports = {
     nodeProject('api', ['<rootDir>/tests/api'], {
       globalSetup: '<rootDir>/tests/support/api-global-setup.ts',
       globalTeardown: '<rootDir>/tests/support/global-teardown.ts',
+      setupFilesAfterEnv: ['<rootDir>/tests/support/api-timeout.ts'],
     }),
     nodeProject('browser', ['<rootDir>/tests/browser'], {
       globalSetup: '<rootDir>/tests/support/browser-global-setup.ts',

@@ -23,6 +23,7 @@ import { girdersRouter } from './girders/girders.router';
 import { libraryRouter } from './library/library.router';
 import { inspectionsRouter } from './inspections/inspections.router';
 import { ratingsRouter } from './ratings/ratings.router';
+import { priorRatingsRouter } from './prior-ratings/prior-ratings.router';
 import { importsRouter } from './imports/imports.router';
 import type { BackgroundJobs } from './jobs/background-jobs';
 import { alertsRouter } from './alerts/alerts.router';
@@ -71,6 +72,7 @@ export function createApp({ config, db, logger, jobs }: AppDependencies): Expres
   const photoStorage = new ObjectStorage(config.objectStorage, logger);
   api.use(inspectionsRouter(db, photoStorage));
   api.use(ratingsRouter(db));
+  api.use(priorRatingsRouter(db));
   api.use(importsRouter(db, { sizeLimitBytes: config.importSizeLimitBytes, queue: jobs ? { jobs, backgroundFromBytes: config.importBackgroundFromBytes } : undefined }));
   api.use(alertsRouter(db));
   api.use(photosRouter({ db, storage: photoStorage, sizeLimitBytes: config.photoSizeLimitBytes }));

@@ -140,6 +140,36 @@ export interface ReviewComment {
   readonly by: string | null;
 }
 
+/**
+ * A rating on file from before Spanledger (imported from the owner's records), for a whole
+ * structure (`spanId` null) or one span: `GET /api/structures/:id/prior-ratings`.
+ */
+export interface PriorRatingSummary extends RatingFigures {
+  readonly id: number;
+  readonly structureId: number;
+  readonly spanId: number | null;
+  readonly spanIndex: number | null;
+  /** The day it was approved, YYYY-MM-DD. */
+  readonly approvedOn: string;
+  readonly sourceNote: string;
+  /** The import that last wrote it. */
+  readonly importId: number | null;
+  /** The prior rating it follows: the newest earlier one of the same span or of the whole structure (of the whole structure, for a whole-structure one). */
+  readonly previous: (RatingFigures & { readonly id: number; readonly approvedOn: string }) | null;
+  readonly created: UserStamp;
+}
+
+/**
+ * The rating of record a record or a new run is compared with: the span's approved record, or —
+ * where Spanledger has approved none — the prior rating on file (`priorRating`), whose id is then
+ * the prior rating's.
+ */
+export interface ComparedRatingOfRecord extends RatingFigures {
+  readonly id: number;
+  readonly approvedAt: string;
+  readonly priorRating?: { readonly id: number; readonly approvedOn: string; readonly sourceNote: string; readonly spanIndex: number | null };
+}
+
 /** `GET /api/ratings/:id`. */
 export interface RatingDetail extends RatingSummary {
   readonly run: RatingRun;
@@ -152,8 +182,8 @@ export interface RatingDetail extends RatingSummary {
   readonly results: readonly RatingResultRow[];
   readonly warnings: readonly string[];
   readonly reviewComments: readonly ReviewComment[];
-  /** The span's rating of record when this record was run (none for a first rating). */
-  readonly previousRecord: (RatingFigures & { readonly id: number; readonly approvedAt: string }) | null;
+  /** The span's rating of record when this record was run, else its prior rating on file (none for a first rating). */
+  readonly previousRecord: ComparedRatingOfRecord | null;
   /** Whether the signed-in user may take each step now (the server checks again). */
   readonly allowed: { readonly rerun: boolean; readonly submit: boolean; readonly approve: boolean; readonly return: boolean };
   readonly caution: string;
@@ -172,7 +202,8 @@ export interface RatingSetup {
   readonly openFindings: readonly AppliedFinding[];
   readonly vehicles: readonly { readonly id: string; readonly version: string; readonly name: string; readonly category: string | null }[];
   readonly policies: readonly { readonly id: string; readonly version: string; readonly name: string }[];
-  readonly ratingOfRecord: (RatingFigures & { readonly id: number; readonly approvedAt: string }) | null;
+  /** The span's rating of record, else its prior rating on file. */
+  readonly ratingOfRecord: ComparedRatingOfRecord | null;
   readonly reratingDue: boolean;
 }
 

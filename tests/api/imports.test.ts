@@ -87,6 +87,18 @@ describe('imports API: checking an upload', () => {
     expect((await clients.get('inspectorSouth')!.request('/api/import-templates/bridges.csv')).status).toBe(400);
   });
 
+  it('offers every template in one workbook, which uploads as it is: its columns sheet is skipped, its example rows checked', async () => {
+    const workbook = await clients.get('raterCentral')!.request('/api/import-templates/all.xlsx');
+    expect(workbook.status).toBe(200);
+    const read = new ExcelJS.Workbook();
+    await read.xlsx.load(workbook.bytes as unknown as ArrayBuffer);
+    expect(read.worksheets.map((sheet) => sheet.name)).toEqual(['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings', 'columns']);
+
+    const checked = json<ImportDetail>(await upload('raterCentral', workbook.bytes, 'spanledger-import-templates.xlsx'));
+    expect(checked.problems.filter((problem) => problem.sheet === 'columns')).toEqual([]);
+    expect(Object.keys(checked.counts).sort()).toEqual(['findings', 'girders', 'prior-ratings', 'spans', 'strand-rows', 'structures']);
+  });
+
   it('counts what a file would create, change and leave alone, and writes nothing to the register', async () => {
     const existing = (await testDb.db('structures').where({ district: 'Central District' }).orderBy('structure_number').first('id')) as { id: number };
     const stored = json<StructureDetail>(await clients.get('raterCentral')!.request(`/api/structures/${existing.id}`));

@@ -1,5 +1,6 @@
 import { isDeepStrictEqual } from 'node:util';
 import {
+  COLUMNS_SHEET_NAME,
   IMPORT_TEMPLATE_NAMES,
   canInDistrict,
   checkUpload,
@@ -19,10 +20,16 @@ import {
 import type { Database, Transaction } from '../db/database';
 import { toGirderRecord } from '../girders/girder-record';
 import { findGirdersOfSpans, findGirderTypes, findStrandRowsOfGirders, type GirderRow } from '../girders/girders.repository';
+import { findFindingsOfInspection, findInspectionsOfStructures, type FindingRow, type InspectionRow } from '../inspections/inspections.repository';
+import { findingsMisfitOnGirder, importedFindingOutcomeInDraft, placeOfImportedFindings } from '../inspections/inspections.service';
+import { findPriorRatingsOfStructures, type PriorRatingRow } from '../prior-ratings/prior-ratings.repository';
+import { priorRatingMisfit } from '../prior-ratings/prior-ratings.service';
 import { findSpansOfStructures, type SpanRow } from '../spans/spans.repository';
 import { editableFields as spanFields } from '../spans/spans.service';
 import { findStructuresByNumbers, type StructureRow } from '../structures/structures.repository';
 import { editableFields as structureFields } from '../structures/structures.service';
+import { findingColumnOf } from './import-write-findings';
+import { priorRatingColumnOf } from './import-write-prior-ratings';
 import { readRows } from './readers/read-rows';
 
 type Db = Database | Transaction;
@@ -34,7 +41,7 @@ export interface UploadJudgement {
   readonly rows: readonly AnyConvertedRow[];
 }
 
-/** Who may import each template (product.md, permission matrix): inventory by its editors, findings by inspectors and raters. */
+/** Who may import each template (product.md, permission matrix): inventory by its editors, findings by inspectors and raters, prior ratings by those who run ratings — they are ratings of record. */
 const ACTION_OF: Readonly<Record<ImportTemplateName, Action>> = {
   structures: 'editInventory',
   spans: 'editInventory',
@@ -60,6 +67,8 @@ export async function readAndConvert(filePath: string, csvTemplate: ImportTempla
   const problems: ImportProblem[] = [];
   const headersBySheet = new Map<string, { template: ImportTemplateName; headers: HeaderReading } | null>();
   for await (const row of readRows(filePath, csvTemplate ? { sheetName: csvTemplate } : {})) {
+    // The template workbook's own description of its columns, left in a filled-in template.
+    if (row.sheet === COLUMNS_SHEET_NAME) continue;
     let sheet = headersBySheet.get(row.sheet);
     if (sheet === undefined) {
       const template = templateNamed(row.sheet);
@@ -92,9 +101,27 @@ interface Register {
   readonly girders: ReadonlyMap<string, GirderRow>;
   readonly strandRows: ReadonlyMap<number, Parameters<typeof toGirderRecord>[1]>;
   readonly girderTypeIds: ReadonlyMap<string, number>;
+  /** The inspections of the structures the file has findings for, by structure number, oldest first. */
+  readonly inspections: ReadonlyMap<string, readonly InspectionRow[]>;
+  /** The findings of the user's own drafts among them, by inspection id: an imported finding may change one. */
+  readonly draftFindings: ReadonlyMap<number, readonly FindingRow[]>;
+  /** The prior ratings of the structures the file has prior ratings for, by structure number. */
+  readonly priorRatings: ReadonlyMap<string, readonly PriorRatingRow[]>;
 }
 
-async function readRegister(db: Db, rows: readonly AnyConvertedRow[]): Promise<Register> {
+/** The stored rows of the structures a template's rows name, by structure number. */
+function byStructureNumber<T extends { structure_id: number }>(stored: readonly T[], structures: ReadonlyMap<string, StructureRow>): Map<string, T[]> {
+  const numberOf = new Map([...structures.values()].map((structure) => [structure.id, structure.structure_number]));
+  const grouped = new Map<string, T[]>();
+  for (const row of stored) grouped.set(numberOf.get(row.structure_id)!, [...(grouped.get(numberOf.get(row.structure_id)!) ?? []), row]);
+  return grouped;
+}
+
+const storedIdsNamedBy = (rows: readonly AnyConvertedRow[], template: ImportTemplateName, structures: ReadonlyMap<string, StructureRow>) => [
+  ...new Set(rows.flatMap((row) => (row.template === template ? (structures.get(row.body.structureNumber)?.id ?? []) : []))),
+];
+
+async function readRegister(db: Db, user: SignedInUser, rows: readonly AnyConvertedRow[]): Promise<Register> {
   const numbers = [...new Set(rows.map((row) => row.body.structureNumber))];
   const structureRows = await findStructuresByNumbers(db, numbers);
   const structures = new Map(structureRows.map((row) => [row.structure_number, row]));
@@ -105,7 +132,13 @@ async function readRegister(db: Db, rows: readonly AnyConvertedRow[]): Promise<R
   const girders = new Map(girderRows.map((row) => [girderKey({ structureNumber: row.structure_number, spanIndex: row.span_index, girderNumber: row.girder_number }), row]));
   const strandRows = await findStrandRowsOfGirders(db, girderRows.map((row) => row.id));
   const girderTypeIds = new Map((await findGirderTypes(db)).map((type) => [type.name.toLowerCase(), type.id]));
-  return { structures, spans, girders, strandRows, girderTypeIds };
+  const inspectionRows = await findInspectionsOfStructures(db, storedIdsNamedBy(rows, 'findings', structures));
+  const draftFindings = new Map<number, FindingRow[]>();
+  for (const draft of inspectionRows.filter((inspection) => inspection.inspector_id === user.id && (inspection.state === 'draft' || inspection.state === 'returned'))) {
+    draftFindings.set(draft.id, await findFindingsOfInspection(db, draft.id));
+  }
+  const priorRatings = byStructureNumber(await findPriorRatingsOfStructures(db, storedIdsNamedBy(rows, 'prior-ratings', structures)), structures);
+  return { structures, spans, girders, strandRows, girderTypeIds, inspections: byStructureNumber(inspectionRows, structures), draftFindings, priorRatings };
 }
 
 type Outcome = 'create' | 'update' | 'unchanged';
@@ -142,7 +175,7 @@ function judgeSpan(row: ConvertedRow<'spans'>, register: Register, inFile: Reado
   const stored = register.spans.get(spanKey(row.body));
   if (stored) return ok(sameAs(spanFields(stored), row.body.span) ? 'unchanged' : 'update');
   if (!register.structures.has(row.body.structureNumber) && !inFile.has(row.body.structureNumber)) {
-    return refused(problemAt(row, row.keyColumns, row.body.structureNumber, `structure ${row.body.structureNumber} is neither in the register nor in this file`));
+    return refused(problemAt(row, row.keyColumns, row.body.structureNumber, `structure ${row.body.structureNumber} is not in the register, and no valid structures row of this file adds it`));
   }
   return ok('create');
 }
@@ -157,22 +190,110 @@ function judgeGirder(row: ConvertedRow<'girders'>, register: Register, spansInFi
     return ok(sameAs(storedRecord, { ...row.body.record, girderTypeId }) ? 'unchanged' : 'update');
   }
   if (!register.spans.has(spanKey(row.body)) && !spansInFile.has(spanKey(row.body))) {
-    return refused(problemAt(row, row.keyColumns, `${row.body.structureNumber} span ${row.body.spanIndex}`, 'this span is neither in the register nor in this file'));
+    return refused(problemAt(row, row.keyColumns, `${row.body.structureNumber} span ${row.body.spanIndex}`, 'this span is not in the register, and no valid spans row of this file adds it'));
   }
   return ok('create');
 }
 
-function judgeOnGirder(row: ConvertedRow<'strand-rows'> | ConvertedRow<'findings'>, register: Register, girdersInFile: ReadonlySet<string>): Judged {
+function judgeStrandRows(row: ConvertedRow<'strand-rows'>, register: Register, girdersInFile: ReadonlySet<string>): Judged {
   if (register.girders.has(girderKey(row.body)) || girdersInFile.has(girderKey(row.body))) return ok('create');
   const { structureNumber, spanIndex, girderNumber } = row.body;
-  return refused(problemAt(row, row.keyColumns, `${structureNumber} span ${spanIndex} girder ${girderNumber}`, 'this girder is neither in the register nor in this file'));
+  return refused(problemAt(row, row.keyColumns, `${structureNumber} span ${spanIndex} girder ${girderNumber}`, 'this girder is not in the register, and no valid girders row of this file adds it'));
 }
 
-function judgePriorRating(row: ConvertedRow<'prior-ratings'>, register: Register): Judged {
-  const { structureNumber, spanIndex } = row.body;
-  if (!register.structures.has(structureNumber)) return refused(problemAt(row, 'structure_number', structureNumber, 'is not in the register'));
-  if (spanIndex !== null && !register.spans.has(spanKey({ structureNumber, spanIndex }))) return refused(problemAt(row, 'span_index', spanIndex, `structure ${structureNumber} has no span ${spanIndex}`));
-  return ok('create');
+/** What the file says that a finding's girder, as the file leaves it, is checked against: the girders, spans and strand rows it writes. */
+interface FileFacts {
+  readonly structures: ReadonlySet<string>;
+  readonly spans: ReadonlySet<string>;
+  readonly girders: ReadonlySet<string>;
+  /** The strand rows the file gives, by girder: they replace the stored ones. */
+  readonly strandRowIds: ReadonlyMap<string, readonly string[]>;
+}
+
+/** A cell of the row's body at a column's place, as the problem list shows it. */
+function valueAt(body: unknown, path: readonly string[]): ImportProblem['value'] {
+  const value = path.reduce<unknown>((node, key) => (node as Record<string, unknown> | null | undefined)?.[key], body);
+  if (Array.isArray(value)) return value.join(';');
+  return typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean' ? value : null;
+}
+
+const findingProblem = (row: ConvertedRow<'findings'>, field: string, message: string): ImportProblem => {
+  const column = findingColumnOf(row, field);
+  return problemAt(row, column.header, column.path ? valueAt(row.body, column.path) : null, message);
+};
+
+/** Whether the file changes what a finding on the girder is checked against: the girder, its strand rows or its span. */
+const touchedByFile = (row: ConvertedRow<'findings'>, inFile: FileFacts) => inFile.girders.has(girderKey(row.body)) || inFile.strandRowIds.has(girderKey(row.body)) || inFile.spans.has(spanKey(row.body));
+
+/**
+ * The engine's judgement of each finding on a stored girder the file leaves as it is — strands the
+ * girder lacks, a place beyond the span, a spall outside the concrete — by the rules that record
+ * a finding through the API, each finding alone. A girder the file writes is judged so when the
+ * commit has written it.
+ */
+async function misfitsOnStoredGirders(db: Db, rows: readonly AnyConvertedRow[], register: Register, inFile: FileFacts): Promise<Map<AnyConvertedRow, ImportProblem[]>> {
+  const byGirder = new Map<number, ConvertedRow<'findings'>[]>();
+  for (const row of rows) {
+    if (row.template !== 'findings' || touchedByFile(row, inFile)) continue;
+    const girder = register.girders.get(girderKey(row.body));
+    if (girder) byGirder.set(girder.id, [...(byGirder.get(girder.id) ?? []), row]);
+  }
+  const misfits = new Map<AnyConvertedRow, ImportProblem[]>();
+  for (const [girderId, findingRows] of byGirder) {
+    const spanLengthM = register.spans.get(spanKey(findingRows[0]!.body))!.length_m;
+    const fields = await findingsMisfitOnGirder(db, girderId, spanLengthM, findingRows.map((row) => row.body.finding));
+    findingRows.forEach((row, index) => misfits.set(row, fields[index]!.map((field) => findingProblem(row, field.field, field.message))));
+  }
+  return misfits;
+}
+
+/**
+ * A finding row: its girder is in the register or the file; the strand row it names is the
+ * girder's as the file leaves it; it fits the stored girder (`misfitsOnStoredGirders`); and its
+ * inspection may take it (`placeOfImportedFindings`) — a new inspection, or the user's own draft,
+ * where it adds a finding or changes the one of the same key.
+ */
+function judgeFinding(row: ConvertedRow<'findings'>, register: Register, user: SignedInUser, inFile: FileFacts, misfits: readonly ImportProblem[]): Judged {
+  const { structureNumber, spanIndex, girderNumber, inspectedOn, finding } = row.body;
+  const key = girderKey(row.body);
+  const stored = register.girders.get(key);
+  if (!stored && !inFile.girders.has(key)) return refused(problemAt(row, row.keyColumns, `${structureNumber} span ${spanIndex} girder ${girderNumber}`, 'this girder is not in the register, and no valid girders row of this file adds it'));
+  if (finding.strands && touchedByFile(row, inFile)) {
+    const rowIds = inFile.strandRowIds.get(key) ?? (stored ? (register.strandRows.get(stored.id) ?? []).map((strandRow) => strandRow.row_key) : []);
+    if (!rowIds.includes(finding.strands.rowId)) {
+      return refused(findingProblem(row, 'strands.rowId', `girder ${girderNumber} of span ${spanIndex} has no strand row "${finding.strands.rowId}"${rowIds.length > 0 ? ` (its rows: ${rowIds.join(', ')})` : ''}`));
+    }
+  }
+  if (misfits.length > 0) return refused(...misfits);
+  const place = placeOfImportedFindings(register.inspections.get(structureNumber) ?? [], user, structureNumber, inspectedOn);
+  switch (place.kind) {
+    case 'refused':
+      return refused(findingProblem(row, 'inspectedOn', place.message));
+    case 'own-draft':
+      return ok(stored ? importedFindingOutcomeInDraft(register.draftFindings.get(place.inspectionId) ?? [], stored.id, finding) : 'create');
+    case 'new-inspection':
+    case 'this-import':
+      return ok('create');
+  }
+}
+
+/** A prior-ratings row: its structure (and span) in the register or the file, approved already; it records a rating of that day, changes it, or finds it so. */
+function judgePriorRating(row: ConvertedRow<'prior-ratings'>, register: Register, inFile: FileFacts): Judged {
+  const { structureNumber, spanIndex, approvedOn } = row.body;
+  const structure = register.structures.get(structureNumber);
+  if (!structure && !inFile.structures.has(structureNumber)) return refused(problemAt(row, 'structure_number', structureNumber, 'is not in the register, and no valid structures row of this file adds it'));
+  const span = spanIndex === null ? null : register.spans.get(spanKey({ structureNumber, spanIndex }));
+  if (spanIndex !== null && !span && !inFile.spans.has(spanKey({ structureNumber, spanIndex }))) {
+    return refused(problemAt(row, 'span_index', spanIndex, `structure ${structureNumber} has no span ${spanIndex} in the register or in this file`));
+  }
+  const misfit = priorRatingMisfit(row.body);
+  if (misfit.length > 0) return refused(...misfit.map((field) => problemAt(row, priorRatingColumnOf(row, field.field), approvedOn, field.message)));
+  // A span new in the file has no prior ratings yet.
+  if (spanIndex !== null && !span) return ok('create');
+  const sameDay = (register.priorRatings.get(structureNumber) ?? []).find((stored) => stored.approved_on === approvedOn && stored.span_id === (span?.id ?? null));
+  if (!sameDay) return ok('create');
+  const same = sameDay.lowest_legal_rf === row.body.lowestLegalRatingFactor && sameDay.design_inventory_rf === row.body.designInventoryRatingFactor && sameDay.source_note === row.body.sourceNote;
+  return ok(same ? 'unchanged' : 'update');
 }
 
 /**
@@ -182,10 +303,14 @@ function judgePriorRating(row: ConvertedRow<'prior-ratings'>, register: Register
  * rows as a whole, so they count once per girder.
  */
 export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: readonly AnyConvertedRow[]): Promise<UploadJudgement> {
-  const register = await readRegister(db, rows);
+  const register = await readRegister(db, user, rows);
   const structuresInFile = new Map(rows.flatMap((row) => (row.template === 'structures' ? [[row.body.structureNumber, row.body.district] as const] : [])));
   const spansInFile = new Set(rows.flatMap((row) => (row.template === 'spans' ? [spanKey(row.body)] : [])));
   const girdersInFile = new Set(rows.flatMap((row) => (row.template === 'girders' ? [girderKey(row.body)] : [])));
+  const strandRowIds = new Map<string, string[]>();
+  for (const row of rows) if (row.template === 'strand-rows') strandRowIds.set(girderKey(row.body), [...(strandRowIds.get(girderKey(row.body)) ?? []), row.body.strandRow.id]);
+  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, strandRowIds };
+  const misfits = await misfitsOnStoredGirders(db, rows, register, inFile);
   const counts: Partial<Record<ImportTemplateName, { rows: number; create: number; update: number; unchanged: number }>> = {};
   const problems: ImportProblem[] = [];
   const strandRowsOfGirder = new Map<string, unknown[]>();
@@ -198,7 +323,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
       problems.push(problemAt(row, row.keyColumns, row.body.structureNumber, `you may not import ${row.template.replace('-', ' ')} in ${district}`));
       continue;
     }
-    const judged = judgeRow(row, register, user, { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile });
+    const judged = judgeRow(row, register, user, inFile, misfits.get(row) ?? []);
     problems.push(...judged.problems);
     if (judged.outcome === null) continue;
     if (row.template === 'strand-rows') {
@@ -220,7 +345,7 @@ function strandRowsOutcome(register: Register, key: string, strandRows: readonly
   return isDeepStrictEqual(storedRows, strandRows) ? 'unchanged' : 'update';
 }
 
-function judgeRow(row: AnyConvertedRow, register: Register, user: SignedInUser, inFile: { structures: ReadonlySet<string>; spans: ReadonlySet<string>; girders: ReadonlySet<string> }): Judged {
+function judgeRow(row: AnyConvertedRow, register: Register, user: SignedInUser, inFile: FileFacts, misfits: readonly ImportProblem[]): Judged {
   switch (row.template) {
     case 'structures':
       return judgeStructure(row, register, user);
@@ -229,9 +354,10 @@ function judgeRow(row: AnyConvertedRow, register: Register, user: SignedInUser, 
     case 'girders':
       return judgeGirder(row, register, inFile.spans);
     case 'strand-rows':
+      return judgeStrandRows(row, register, inFile.girders);
     case 'findings':
-      return judgeOnGirder(row, register, inFile.girders);
+      return judgeFinding(row, register, user, inFile, misfits);
     case 'prior-ratings':
-      return judgePriorRating(row, register);
+      return judgePriorRating(row, register, inFile);
   }
 }

@@ -19,6 +19,8 @@ import { findSpansOfStructure, findSpansOfStructures, recountGirders } from '../
 import { changeSpan, createSpan, createSpans, type NewSpan, type NewSpanFields } from '../spans/spans.service';
 import { findStructuresByNumbers } from '../structures/structures.repository';
 import { changeStructure, createStructure, createStructures } from '../structures/structures.service';
+import { writeFindingRow } from './import-write-findings';
+import { writePriorRatingRow } from './import-write-prior-ratings';
 
 /** Templates in the order their rows are written: each after what it hangs on. */
 const WRITE_ORDER: readonly ImportTemplateName[] = ['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings'];
@@ -318,7 +320,8 @@ async function writeRow(writer: Writer, row: AnyConvertedRow, strandRowsDone: Se
     case 'strand-rows':
       return writeStrandRows(writer, row, strandRowsDone);
     case 'findings':
+      return writeFindingRow(writer.trx, writer.user, row);
     case 'prior-ratings':
-      throw AppError.invalidFields([{ field: row.keyColumns, message: `${row.template.replace('-', ' ')} are checked but not yet written by this version of the import` }]);
+      return writePriorRatingRow(writer.trx, writer.user, row);
   }
 }

@@ -1,4 +1,4 @@
-import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, type AnyConvertedRow, type ImportDetail, type ImportProblem, type ImportSummary, type ImportTemplateName, type SignedInUser } from '../../../shared/src';
+import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, type ImportDetail, type ImportProblem, type ImportSummary, type ImportTemplateName, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent } from '../audit/audit-events';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { AppError } from '../http/app-error';
@@ -115,7 +115,7 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   }
   const read = await readFile(file, fileKind);
   const judged = await judgeAgainstRegister(db, user, read.rows);
-  const problems = [...read.problems, ...judged.problems, ...notYetWritten(read.rows)];
+  const problems = [...read.problems, ...judged.problems];
   const id = await withTransaction(db, async (trx) => {
     const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
@@ -133,19 +133,6 @@ function importedBefore(earlier: ImportRow): AppError {
     message: `This file was imported already: import ${earlier.id} of ${earlier.uploaded_at.toISOString().slice(0, 10)} by ${earlier.committed_by_name ?? 'someone'} holds the same bytes`,
     details: { importId: earlier.id, fields: [{ field: 'file', message: 'imported already' }] },
   });
-}
-
-/** Findings and prior ratings are checked in full, but this version writes only the inventory: say so once per sheet rather than pretend. */
-function notYetWritten(rows: readonly AnyConvertedRow[]): ImportProblem[] {
-  const sheets = new Map<string, AnyConvertedRow>();
-  for (const row of rows) if ((row.template === 'findings' || row.template === 'prior-ratings') && !sheets.has(row.sheet)) sheets.set(row.sheet, row);
-  return [...sheets.values()].map((row) => ({
-    sheet: row.sheet,
-    row: row.rowNumber,
-    column: '',
-    value: null,
-    message: `${row.template.replace('-', ' ')} rows are checked, but this version imports only structures, spans, girders and strand rows; import this sheet later, or record them on their pages`,
-  }));
 }
 
 /** The import locked for a step by its uploader, at the version read. */

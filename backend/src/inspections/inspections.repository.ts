@@ -22,6 +22,10 @@ export interface InspectionRow {
   submitted_at: Date | null;
   reviewed_by_name: string | null;
   reviewed_at: Date | null;
+  /** Recorded in the field, or from an imported spreadsheet of field sheets. */
+  source: 'field' | 'import';
+  /** The import that wrote it; null for one recorded in the field, and for one whose import's commit is still being written. */
+  import_id: number | null;
   version: number;
 }
 
@@ -48,6 +52,8 @@ function inspectionsWithNames(db: Db) {
       'i.submitted_at',
       'reviewer.display_name as reviewed_by_name',
       'i.reviewed_at',
+      'i.source',
+      'i.import_id',
       'i.version',
     );
 }
@@ -86,11 +92,44 @@ export async function findPendingSuperstructureCondition(db: Db, structureId: nu
   return row ? { superstructure: row.superstructure_condition, inspectedOn: row.inspected_on } : undefined;
 }
 
+/** Every inspection of these structures, oldest first: what an import of findings for them must fit in with. */
+export async function findInspectionsOfStructures(db: Db, structureIds: readonly number[]): Promise<InspectionRow[]> {
+  if (structureIds.length === 0) return [];
+  return inspectionsWithNames(db).whereIn('i.structure_id', structureIds).orderBy([{ column: 'i.inspected_on', order: 'asc' }, { column: 'i.id', order: 'asc' }]);
+}
+
 export type InspectionColumns = Partial<Pick<InspectionRow, 'inspected_on' | 'kind' | 'deck_condition' | 'superstructure_condition' | 'substructure_condition' | 'notes'>>;
 
 export async function insertInspection(trx: Transaction, structureId: number, columns: Required<InspectionColumns>, userId: number): Promise<number> {
   const [row] = await trx('inspections')
     .insert({ ...columns, structure_id: structureId, inspector_id: userId, created_by: userId, updated_by: userId })
+    .returning('id');
+  return (row as { id: number }).id;
+}
+
+/**
+ * An inspection recorded from an imported spreadsheet, by the importer, already on the register:
+ * submitted, and accepted by the importer when they are a reviewer (`reviewedBy`).
+ */
+export async function insertImportedInspection(
+  trx: Transaction,
+  structureId: number,
+  columns: Pick<InspectionRow, 'inspected_on' | 'kind' | 'notes'> & { state: 'submitted' | 'accepted'; reviewedBy: number | null },
+  userId: number,
+): Promise<number> {
+  const { reviewedBy, ...rest } = columns;
+  const [row] = await trx('inspections')
+    .insert({
+      ...rest,
+      structure_id: structureId,
+      inspector_id: userId,
+      source: 'import',
+      submitted_at: trx.fn.now(),
+      reviewed_by: reviewedBy,
+      reviewed_at: reviewedBy === null ? null : trx.fn.now(),
+      created_by: userId,
+      updated_by: userId,
+    })
     .returning('id');
   return (row as { id: number }).id;
 }

@@ -2,10 +2,12 @@ import {
   canInDistrict,
   damageEntryOfFinding,
   FINDING_KIND_NAMES,
+  INSPECTION_STATE_NAMES,
   isCriticalFinding,
   type FindingChange,
   type FindingDamage,
   type FindingDetail,
+  type ImportCounts,
   type InspectionChange,
   type InspectionDetail,
   type InspectionSummary,
@@ -19,7 +21,7 @@ import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { damageIssuesOnGirder } from '../girders/girders.service';
 import { findGirderById } from '../girders/girders.repository';
-import { AppError } from '../http/app-error';
+import { AppError, type InvalidField } from '../http/app-error';
 import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { findStructureById, updateStructure } from '../structures/structures.repository';
 import { findPhotoIdsOfFindings, findPhotosOfInspection } from '../photos/photos.repository';
@@ -34,9 +36,11 @@ import {
   findInspectionById,
   findInspectionInProgress,
   findInspectionsOfStructure,
+  findInspectionsOfStructures,
   findOpenFindingsOfSpan,
   findOpenFindingsOfStructure,
   insertFinding,
+  insertImportedInspection,
   insertInspection,
   supersedeCarriedFindings,
   updateFinding,
@@ -252,22 +256,33 @@ function findingPathOf(damagePath: string, kind: FindingDetail['kind']): string 
   return rest;
 }
 
-type FindingInput = Omit<NewFinding, 'girderId'>;
+/** A finding as recorded against a girder named apart from it (by the route, or by an import row's girder key). */
+export type FindingInput = Omit<NewFinding, 'girderId'>;
 
-/** Refuses a finding the girder cannot have: strands it lacks, a place beyond its span, a spall outside its concrete. */
-async function assertFindingFitsGirder(trx: Transaction, girderId: number, spanLengthM: number, finding: FindingInput): Promise<void> {
-  const fields: { field: string; message: string }[] = [];
-  for (const field of ['fromM', 'toM'] as const) {
-    if (finding[field] > spanLengthM) fields.push({ field, message: `lies beyond the span (${spanLengthM} m)` });
-  }
-  const entry = damageEntryOfFinding(finding);
-  if (entry) {
-    for (const issue of await damageIssuesOnGirder(trx, girderId, [entry])) {
+/**
+ * What refuses each finding on the girder — strands it does not have, a place beyond its span, a
+ * spall outside its concrete — as fields of the finding, a list per finding (empty when it fits).
+ * Each is judged alone against the girder, as the API records one: damage builds up entry by
+ * entry in the engine, so judging them together would refuse what recording them one by one takes.
+ */
+export async function findingsMisfitOnGirder(db: Database | Transaction, girderId: number, spanLengthM: number, findings: readonly FindingInput[]): Promise<InvalidField[][]> {
+  const misfits: InvalidField[][] = [];
+  for (const finding of findings) {
+    const fields: InvalidField[] = (['fromM', 'toM'] as const).flatMap((field) => (finding[field] > spanLengthM ? [{ field, message: `lies beyond the span (${spanLengthM} m)` }] : []));
+    const entry = damageEntryOfFinding(finding);
+    for (const issue of entry ? await damageIssuesOnGirder(db, girderId, [entry]) : []) {
       const field = findingPathOf(issue.path, finding.kind);
       if (!fields.some((f) => f.field === field)) fields.push({ field, message: issue.message });
     }
+    misfits.push(fields);
   }
-  if (fields.length > 0) throw AppError.invalidFields(fields);
+  return misfits;
+}
+
+/** Refuses a finding the girder cannot have: strands it lacks, a place beyond its span, a spall outside its concrete. */
+async function assertFindingFitsGirder(trx: Transaction, girderId: number, spanLengthM: number, finding: FindingInput): Promise<void> {
+  const [fields] = await findingsMisfitOnGirder(trx, girderId, spanLengthM, [finding]);
+  if (fields!.length > 0) throw AppError.invalidFields(fields!);
 }
 
 function findingColumnsOf(finding: FindingInput, disposition: FindingDetail['disposition']): FindingColumns {
@@ -345,6 +360,132 @@ export async function removeFinding({ db, user }: Writer, findingId: number): Pr
     await deleteFinding(trx, findingId);
     await recordAuditEvent({ db: trx, user, action: 'finding.deleted', entity: { type: 'finding', id: findingId }, before: findingFields(row) });
   });
+}
+
+/** What an imported row does to the register: records something new, changes what is there, or finds it already so. */
+export type ImportOutcome = Exclude<keyof ImportCounts, 'rows'>;
+
+/** Where findings imported for a structure's inspection of a day go, judged from the structure's inspections on file. */
+export type ImportedFindingsPlace =
+  | { readonly kind: 'new-inspection' }
+  | { readonly kind: 'this-import'; readonly inspectionId: number }
+  | { readonly kind: 'own-draft'; readonly inspectionId: number }
+  | { readonly kind: 'refused'; readonly message: string };
+
+type InspectionOnFile = Pick<InspectionRow, 'id' | 'inspected_on' | 'state' | 'inspector_id' | 'inspector_name' | 'source' | 'import_id'>;
+
+const beingWritten = (inspection: InspectionOnFile) => inspection.state === 'draft' || inspection.state === 'returned';
+/** Written by the commit now running: an imported inspection not yet claimed by its import (migrations/20261220000100_prior_ratings.ts). */
+const ofThisImport = (inspection: InspectionOnFile) => inspection.source === 'import' && inspection.import_id === null;
+
+/**
+ * Where findings of a structure's inspection of `inspectedOn` are imported (docs/api.md, Imports):
+ * into the inspection of that day this import is writing; into the importer's own draft of that
+ * day, which stays a draft for them to submit; else into a new inspection — unless another
+ * inspection of that day is on file (it was recorded by someone else, or is already reviewed), one
+ * is being written (one at a time, since a draft carries the register's open findings forward), or
+ * one of a later day is on file: its inspector has looked at the register since, and findings of
+ * an earlier day would stand open beside what they found.
+ */
+export function placeOfImportedFindings(inspections: readonly InspectionOnFile[], user: Pick<SignedInUser, 'id'>, structureNumber: string, inspectedOn: string): ImportedFindingsPlace {
+  const sameDay = inspections.filter((inspection) => inspection.inspected_on === inspectedOn);
+  const imported = sameDay.find(ofThisImport);
+  if (imported) return { kind: 'this-import', inspectionId: imported.id };
+  const ownDraft = sameDay.find((inspection) => beingWritten(inspection) && inspection.inspector_id === user.id);
+  if (ownDraft) return { kind: 'own-draft', inspectionId: ownDraft.id };
+  const [other] = sameDay;
+  if (other) {
+    return { kind: 'refused', message: `${structureNumber} has an inspection of ${inspectedOn} on file (${INSPECTION_STATE_NAMES[other.state].toLowerCase()}, ${other.inspector_name}): findings are imported only into a new inspection or into your own draft of that day` };
+  }
+  const inProgress = inspections.find(beingWritten);
+  if (inProgress) {
+    return { kind: 'refused', message: `an inspection of ${structureNumber} is being written (${inProgress.inspected_on}, ${inProgress.inspector_name}): it is finished or deleted before findings of another day are imported` };
+  }
+  const later = inspections.filter((inspection) => !ofThisImport(inspection) && inspection.inspected_on > inspectedOn).at(-1);
+  if (later) {
+    return { kind: 'refused', message: `${structureNumber} has a later inspection on file (${later.inspected_on}, ${INSPECTION_STATE_NAMES[later.state].toLowerCase()}): findings of an earlier day would stand open beside what it found; record them in a new inspection instead` };
+  }
+  return { kind: 'new-inspection' };
+}
+
+/** The finding of a draft an imported row stands for: one recorded in it (not carried forward) on the same girder, of the same kind, at the same place — the import's key. */
+function sameFindingOfDraft(draftFindings: readonly FindingRow[], girderId: number, finding: FindingInput): FindingRow | undefined {
+  return draftFindings.find((row) => row.carried_from_id === null && row.girder_id === girderId && row.kind === finding.kind && row.from_m === finding.fromM && row.to_m === finding.toM);
+}
+
+/** What an imported finding does to a draft of the importer: adds to it, changes its finding of the same key, or leaves it as it is. */
+export function importedFindingOutcomeInDraft(draftFindings: readonly FindingRow[], girderId: number, finding: FindingInput): ImportOutcome {
+  const same = sameFindingOfDraft(draftFindings, girderId, finding);
+  if (!same) return 'create';
+  return changedFields(findingFields(same), { ...finding, disposition: 'new' }).fields.length === 0 ? 'unchanged' : 'update';
+}
+
+/** An imported inspection is filed as a routine one: a spreadsheet of field sheets does not say which kind each was. */
+const IMPORTED_INSPECTION_NOTE = 'Recorded from an imported spreadsheet of field findings; see the import history.';
+
+/**
+ * A new inspection of the structure recorded from an import, by the importer, already on the
+ * register so that its findings count at once: it goes as far as the importer may take an
+ * inspection — a reviewer's (rater, manager) is accepted by them, an inspector's is submitted and
+ * waits for review like any other. It carries nothing forward: a spreadsheet says what was found,
+ * not what became of earlier findings, so those stay open until an inspection says otherwise.
+ */
+async function startImportedInspection(trx: Transaction, user: SignedInUser, structure: { id: number; district: string }, inspectedOn: string): Promise<InspectionRow> {
+  const accepted = canInDistrict(user, 'reviewInspections', structure.district);
+  const state = accepted ? 'accepted' : 'submitted';
+  const id = await insertImportedInspection(trx, structure.id, { inspected_on: inspectedOn, kind: 'routine', notes: IMPORTED_INSPECTION_NOTE, state, reviewedBy: accepted ? user.id : null }, user.id);
+  await recordAuditEvent({ db: trx, user, action: 'inspection.imported', entity: { type: 'inspection', id }, after: { structureId: structure.id, inspectedOn, kind: 'routine', state } });
+  return (await findInspectionById(trx, id))!;
+}
+
+/** A finding of an imported inspection goes on the register as it is written: its span is due for re-rating and the district's raters hear of a critical one. */
+async function addImportedFinding(trx: Transaction, user: SignedInUser, inspection: InspectionRow, girder: { id: number; span_id: number }, finding: FindingInput): Promise<void> {
+  const span = await trx('spans').where({ id: girder.span_id }).first('length_m');
+  await assertFindingFitsGirder(trx, girder.id, span.length_m, finding);
+  const id = await insertFinding(trx, { ...findingColumnsOf(finding, 'new'), inspection_id: inspection.id, girder_id: girder.id, carried_from_id: null }, user.id);
+  await recordAuditEvent({ db: trx, user, action: 'finding.recorded', entity: { type: 'finding', id }, after: { girderId: girder.id, ...finding, inspectionId: inspection.id, imported: true } });
+  const row = (await findFindingById(trx, id))!;
+  await markSpansReratingDue(trx, spansWithChangedDamage([row]));
+  await alertRatersToCriticalFindings(trx, inspection, [row]);
+}
+
+/**
+ * `POST /api/imports/:id/commit`, a findings row: records the finding on the girder in its
+ * structure's inspection of `inspectedOn` (see `placeOfImportedFindings`), on the same rules as a
+ * finding recorded in the field, with its history entry. Needs `importFindings` in the district.
+ */
+export async function recordImportedFinding({ db, user }: Writer, girderId: number, inspectedOn: string, finding: FindingInput): Promise<ImportOutcome> {
+  return withTransaction(db, async (trx) => {
+    const girder = await findGirderById(trx, girderId);
+    if (!girder) throw AppError.notFound(`There is no girder with id ${girderId}`);
+    // Locked, so imports and inspections of one structure take turns at its list of inspections.
+    const structure = (await findStructureById(trx, girder.structure_id, { forUpdate: true }))!;
+    if (!canInDistrict(user, 'importFindings', structure.district)) throw AppError.forbidden(`You may not import findings in ${structure.district}`);
+    const place = placeOfImportedFindings(await findInspectionsOfStructures(trx, [structure.id]), user, structure.structure_number, inspectedOn);
+    switch (place.kind) {
+      case 'refused':
+        throw AppError.invalidFields([{ field: 'inspectedOn', message: place.message }]);
+      case 'own-draft':
+        return recordInOwnDraft({ db: trx, user }, place.inspectionId, girderId, finding);
+      case 'this-import':
+        await addImportedFinding(trx, user, (await findInspectionById(trx, place.inspectionId, { forUpdate: true }))!, girder, finding);
+        return 'create';
+      case 'new-inspection':
+        await addImportedFinding(trx, user, await startImportedInspection(trx, user, structure, inspectedOn), girder, finding);
+        return 'create';
+    }
+  });
+}
+
+/** An imported finding in the importer's own draft is recorded as through the form: a new one, or a change to its finding of the same key. */
+async function recordInOwnDraft(writer: Writer, inspectionId: number, girderId: number, finding: FindingInput): Promise<ImportOutcome> {
+  const same = sameFindingOfDraft(await findFindingsOfInspection(writer.db, inspectionId), girderId, finding);
+  if (!same) {
+    await addFinding(writer, inspectionId, { ...finding, girderId });
+    return 'create';
+  }
+  const changed = await changeFinding(writer, same.id, { ...finding, version: same.version });
+  return changed.version === same.version ? 'unchanged' : 'update';
 }
 
 /** Alerts the raters of the district to each critical finding not alerted before (a resubmission does not alert twice). */

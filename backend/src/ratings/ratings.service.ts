@@ -18,6 +18,7 @@ import { findStoredGirdersOfSpan } from '../girders/girders.repository';
 import { AppError } from '../http/app-error';
 import { findOpenFindingsOfSpan, findPendingSuperstructureCondition } from '../inspections/inspections.repository';
 import { findLatestLibraryDefinitions } from '../library/library.repository';
+import { priorRatingOfRecordOfSpan } from '../prior-ratings/prior-ratings.service';
 import { findSpanById } from '../spans/spans.repository';
 import { findStructureById } from '../structures/structures.repository';
 import { assembleRating, findingsAsApplied, rateAssembled, vehicleSummary, type RatingSources } from './rating-assembly';
@@ -88,8 +89,10 @@ function ofRecordFigures(row: RatingRow | undefined): RatingDetail['previousReco
   return { id: row.id, lowestLegalRf: row.lowest_legal_rf, lowestInventoryRf: row.lowest_inventory_rf, approvedAt: row.reviewed_at.toISOString() };
 }
 
+/** What a record is compared with: the span's rating of record when it was run — or, for a span Spanledger had not yet approved a rating of, the prior rating on file. */
 async function previousRecordOf(db: Database | Transaction, row: RatingRow): Promise<RatingDetail['previousRecord']> {
-  return row.previous_record_id === null ? null : ofRecordFigures(await findRatingById(db, row.previous_record_id));
+  if (row.previous_record_id === null) return priorRatingOfRecordOfSpan(db, row.span_id);
+  return ofRecordFigures(await findRatingById(db, row.previous_record_id));
 }
 
 /** Warnings of the girders, once each: those every girder shares plainly, the others with the girder they concern. */
@@ -185,7 +188,7 @@ export async function ratingSetup({ db }: Reader, spanId: number): Promise<Ratin
     openFindings: findingsAsApplied(sources.openFindings, sources.girders.map((girder) => girder.id), []),
     vehicles: sources.vehicles.map(vehicleSummary),
     policies: sources.policies.map((row) => ({ id: row.id, version: row.version, name: row.definition.name ?? row.id })),
-    ratingOfRecord: ofRecordFigures(ofRecord),
+    ratingOfRecord: ofRecordFigures(ofRecord) ?? (await priorRatingOfRecordOfSpan(db, spanId)),
     reratingDue: await spanReratingDue(db, spanId),
   };
 }

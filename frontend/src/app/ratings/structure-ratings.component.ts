@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
@@ -12,6 +13,7 @@ import { saveFailureOf } from '../structures/field-problems';
 import { SessionStore } from '../session/session.store';
 import { momentText, ratingFactorText } from './rating-text';
 import { RatingsClient } from './ratings.client';
+import { StructureRatingsPriorComponent } from './structure-ratings-prior.component';
 
 type ListState =
   | { readonly kind: 'loading' }
@@ -20,11 +22,12 @@ type ListState =
 
 /**
  * A structure's rating records, newest first, each opening its page; a rating engineer of the
- * district rates a span from here.
+ * district rates a span from here. Below them, on demand, the ratings on file from before
+ * Spanledger that its spans are compared with until Spanledger approves ratings of its own.
  */
 @Component({
   selector: 'sl-structure-ratings',
-  imports: [MatTableModule, MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink],
+  imports: [MatTableModule, MatButtonModule, MatExpansionModule, MatIconModule, MatProgressBarModule, RouterLink, StructureRatingsPriorComponent],
   templateUrl: './structure-ratings.component.html',
   styleUrls: ['../structures/inventory-table.scss', './structure-ratings.component.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
