@@ -164,9 +164,30 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
  * record and its span and lets the engine's own schema judge it, naming each problem by its
  * place in the record. A girder that passes can always be rated.
  */
-function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number): void {
-  const parsed = parseRateFile(rateFileOf(record, typeSection, span, girderNumber, skewDeg));
+function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number, passed?: Set<string>): void {
+  const rateFile = rateFileOf(record, typeSection, span, girderNumber, skewDeg);
+  const key = passed ? rateFileKey(rateFile) : null;
+  if (key !== null && passed!.has(key)) return;
+  const parsed = parseRateFile(rateFile);
   if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
+  if (key !== null) passed!.add(key);
+}
+
+/**
+ * The whole calculation file as text, for `assertRateable` to know a file it has already passed:
+ * the engine's check is a pure function of the file, and the girders of a span, and the spans of
+ * a structure, are often alike. Values JSON would blur — undefined, non-finite numbers, -0 — get
+ * marks of their own (as does text that starts like a mark), so two files with one key are the same file.
+ */
+function rateFileKey(rateFile: unknown): string {
+  return JSON.stringify(rateFile, function (this: Record<string, unknown>, key, value: unknown) {
+    const own = this[key];
+    if (own === undefined) return '\u0000undefined';
+    if (typeof own === 'string' && own.startsWith('\u0000')) return `\u0000${own}`;
+    if (own instanceof Date) return `\u0000date:${own.getTime()}`;
+    if (typeof own === 'number' && (!Number.isFinite(own) || Object.is(own, -0))) return `\u0000number:${Object.is(own, -0) ? '-0' : String(own)}`;
+    return value;
+  });
 }
 
 /**
@@ -245,9 +266,10 @@ export async function createGirders({ db, user }: { db: Database | Transaction; 
     const types = new Map((await findGirderTypes(trx)).map((type) => [type.id, type]));
     const refused = new Map<number, AppError>();
     const accepted: { index: number; girder: NewGirder; insert: GirderInsert }[] = [];
+    const passedRateFiles = new Set<string>();
     girders.forEach((girder, index) => {
       try {
-        accepted.push({ index, girder, insert: checkedNewGirder(user, spans.get(girder.spanId), types, girder) });
+        accepted.push({ index, girder, insert: checkedNewGirder(user, spans.get(girder.spanId), types, girder, passedRateFiles) });
       } catch (error) {
         if (!(error instanceof AppError)) throw error;
         refused.set(index, error);
@@ -267,11 +289,17 @@ export async function createGirders({ db, user }: { db: Database | Transaction; 
 }
 
 /** One new girder checked against its span, the user's districts and the catalogue, as the columns to insert. */
-function checkedNewGirder(user: SignedInUser, span: (SpanRow & { district: string; skew_deg: number }) | undefined, types: ReadonlyMap<number, GirderTypeRow>, { spanId, girderNumber, record }: NewGirder): GirderInsert {
+function checkedNewGirder(
+  user: SignedInUser,
+  span: (SpanRow & { district: string; skew_deg: number }) | undefined,
+  types: ReadonlyMap<number, GirderTypeRow>,
+  { spanId, girderNumber, record }: NewGirder,
+  passedRateFiles: Set<string>,
+): GirderInsert {
   if (!span) throw AppError.notFound(`There is no span with id ${spanId}`);
   assertMayEditIn(user, span.district);
   const typeSection = record.girderTypeId === null ? null : checkedTypeSection(types.get(record.girderTypeId), record);
-  assertRateable(record, typeSection, span, girderNumber, span.skew_deg);
+  assertRateable(record, typeSection, span, girderNumber, span.skew_deg, passedRateFiles);
   const written = girderColumnsOf(record);
   return { spanId, girderNumber, columns: written.columns, strandRows: written.strandRows };
 }
