@@ -11,6 +11,13 @@ import { startThrowawayCluster } from './throwaway-cluster';
 
 export const APP_URL_VARIABLE = 'SPANLEDGER_TEST_APP_URL';
 const JOURNEY_DATABASE = 'spanledger_journeys';
+/**
+ * Imports from this size on are committed by a background job (IMPORT_BACKGROUND_FROM_BYTES),
+ * set far below the product's 512 kB so that the imports journey's workbook of a few hundred
+ * girders goes the background way and its progress bar can be seen. The other journeys import
+ * nothing.
+ */
+export const JOURNEY_IMPORT_BACKGROUND_FROM_BYTES = 20_000;
 
 /**
  * The browser journeys run against the real product: a built front end served by the real
@@ -26,7 +33,10 @@ export default async function browserGlobalSetup(): Promise<void> {
 
   await ensureDatabase(cluster.port, JOURNEY_DATABASE);
   const url = connectionUrl(cluster.port, JOURNEY_DATABASE);
-  const bed = await startSignInTestBed(url, { LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'warn' });
+  const bed = await startSignInTestBed(url, {
+    LOG_LEVEL: process.env.TEST_LOG_LEVEL ?? 'warn',
+    IMPORT_BACKGROUND_FROM_BYTES: String(JOURNEY_IMPORT_BACKGROUND_FROM_BYTES),
+  });
   registerTeardown(() => bed.stop());
   const db = createDatabase(url, { min: 0, max: 1 });
   try {
