@@ -1,22 +1,16 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { INSPECTION_KIND_NAMES, INSPECTION_STATE_NAMES, canInDistrict, newInspection, type InspectionSummary } from '@spanledger/shared';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
 
+import { loadedList } from '../server-errors/loaded-list';
 import { schemaProblems, saveFailureOf } from '../structures/field-problems';
 import { SessionStore } from '../session/session.store';
 import { inspectionDay, inspectionFieldLabel, localToday } from './inspection-text';
 import { InspectionsClient } from './inspections.client';
-
-type ListState =
-  | { readonly kind: 'loading' }
-  | { readonly kind: 'loaded'; readonly inspections: readonly InspectionSummary[] }
-  | { readonly kind: 'failed'; readonly message: string };
 
 /**
  * A structure's inspections, newest first, each opening its page; an inspector of the district
@@ -41,28 +35,10 @@ export class StructureInspectionsComponent {
   protected readonly starting = signal(false);
   protected readonly startFailure = signal<string | null>(null);
 
-  private readonly state = toSignal(
-    toObservable(this.structureId).pipe(
-      switchMap((structureId) =>
-        this.client.fetchInspectionsOfStructure(structureId).pipe(
-          map((inspections): ListState => ({ kind: 'loaded', inspections })),
-          catchError((error: unknown) => of<ListState>({ kind: 'failed', message: failureText(error) })),
-          startWith<ListState>({ kind: 'loading' }),
-        ),
-      ),
-    ),
-    { initialValue: { kind: 'loading' } as ListState },
-  );
-
-  protected readonly loading = computed(() => this.state().kind === 'loading');
-  protected readonly failure = computed(() => {
-    const state = this.state();
-    return state.kind === 'failed' ? state.message : null;
-  });
-  private readonly inspections = computed(() => {
-    const state = this.state();
-    return state.kind === 'loaded' ? state.inspections : [];
-  });
+  private readonly list = loadedList(this.structureId, (structureId) => this.client.fetchInspectionsOfStructure(structureId), failureText);
+  protected readonly loading = this.list.loading;
+  protected readonly failure = this.list.failure;
+  private readonly inspections = this.list.items;
 
   protected readonly rows = computed(() =>
     this.inspections().map((inspection) => ({

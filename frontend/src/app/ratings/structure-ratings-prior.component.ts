@@ -1,18 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RESULT_CAUTION, type PriorRatingSummary } from '@spanledger/shared';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
 
-import { saveFailureOf } from '../structures/field-problems';
+import { loadedList } from '../server-errors/loaded-list';
 import { ratingChangeText, ratingFactorText } from './rating-text';
 import { PriorRatingsClient } from './structure-ratings-prior.client';
-
-type ListState =
-  | { readonly kind: 'loading' }
-  | { readonly kind: 'loaded'; readonly ratings: readonly PriorRatingSummary[] }
-  | { readonly kind: 'failed'; readonly message: string };
 
 /** A prior rating's day of approval is a date, not a moment: read in UTC so no time zone moves it. */
 const DAY_FORMAT = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeZone: 'UTC' });
@@ -38,32 +31,12 @@ export class StructureRatingsPriorComponent {
   protected readonly caution = RESULT_CAUTION;
   protected readonly columns = ['approved', 'part', 'legal', 'inventory', 'source'];
 
-  private readonly state = toSignal(
-    toObservable(this.structureId).pipe(
-      switchMap((structureId) =>
-        this.client.fetchPriorRatings(structureId).pipe(
-          map((ratings): ListState => ({ kind: 'loaded', ratings })),
-          catchError((error: unknown) => {
-            const failure = saveFailureOf(error);
-            return of<ListState>({ kind: 'failed', message: failure.kind === 'other' ? failure.message : 'Reload the page.' });
-          }),
-          startWith<ListState>({ kind: 'loading' }),
-        ),
-      ),
-    ),
-    { initialValue: { kind: 'loading' } as ListState },
-  );
-
-  protected readonly loading = computed(() => this.state().kind === 'loading');
-  protected readonly failure = computed(() => {
-    const state = this.state();
-    return state.kind === 'failed' ? state.message : null;
-  });
+  private readonly list = loadedList(this.structureId, (structureId) => this.client.fetchPriorRatings(structureId));
+  protected readonly loading = this.list.loading;
+  protected readonly failure = this.list.failure;
 
   protected readonly rows = computed(() => {
-    const state = this.state();
-    if (state.kind !== 'loaded') return [];
-    return state.ratings.map((rating) => {
+    return this.list.items().map((rating) => {
       const before = rating.previous;
       const change = (now: number | null, earlier: number | null) => (before ? ratingChangeText(now, earlier) : 'first on file');
       return {

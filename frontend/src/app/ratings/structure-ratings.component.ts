@@ -1,5 +1,4 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
@@ -7,18 +6,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { RATING_STATE_NAMES, canInDistrict, type RatingSummary, type SpanSummary } from '@spanledger/shared';
-import { catchError, map, of, startWith, switchMap } from 'rxjs';
 
-import { saveFailureOf } from '../structures/field-problems';
+import { loadedList } from '../server-errors/loaded-list';
 import { SessionStore } from '../session/session.store';
 import { momentText, ratingFactorText } from './rating-text';
 import { RatingsClient } from './ratings.client';
 import { StructureRatingsPriorComponent } from './structure-ratings-prior.component';
-
-type ListState =
-  | { readonly kind: 'loading' }
-  | { readonly kind: 'loaded'; readonly ratings: readonly RatingSummary[] }
-  | { readonly kind: 'failed'; readonly message: string };
 
 /**
  * A structure's rating records, newest first, each opening its page; a rating engineer of the
@@ -42,32 +35,12 @@ export class StructureRatingsComponent {
 
   protected readonly columns = ['run', 'span', 'state', 'legal', 'inventory', 'ranBy'];
 
-  private readonly state = toSignal(
-    toObservable(this.structureId).pipe(
-      switchMap((structureId) =>
-        this.client.fetchRatingsOfStructure(structureId).pipe(
-          map((ratings): ListState => ({ kind: 'loaded', ratings })),
-          catchError((error: unknown) => {
-            const failure = saveFailureOf(error);
-            return of<ListState>({ kind: 'failed', message: failure.kind === 'other' ? failure.message : 'Reload the page.' });
-          }),
-          startWith<ListState>({ kind: 'loading' }),
-        ),
-      ),
-    ),
-    { initialValue: { kind: 'loading' } as ListState },
-  );
-
-  protected readonly loading = computed(() => this.state().kind === 'loading');
-  protected readonly failure = computed(() => {
-    const state = this.state();
-    return state.kind === 'failed' ? state.message : null;
-  });
+  private readonly list = loadedList(this.structureId, (structureId) => this.client.fetchRatingsOfStructure(structureId));
+  protected readonly loading = this.list.loading;
+  protected readonly failure = this.list.failure;
 
   protected readonly rows = computed(() => {
-    const state = this.state();
-    if (state.kind !== 'loaded') return [];
-    return state.ratings.map((rating) => ({
+    return this.list.items().map((rating) => ({
       id: rating.id,
       run: momentText(rating.created.at),
       span: `Span ${rating.spanIndex}`,
