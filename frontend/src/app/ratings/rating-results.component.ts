@@ -5,7 +5,7 @@ import { FINDING_KIND_NAMES, type RatingDetail } from '@spanledger/shared';
 
 import { UnitsStore } from '../units/units.store';
 import { RatingChartComponent } from './rating-chart.component';
-import { ratingCaseText, ratingChangeText, ratingFactorText, whatIfText } from './rating-text';
+import { previousRecordText, ratingCaseText, ratingChangeText, ratingFactorText, whatIfText } from './rating-text';
 
 interface Figure {
   readonly key: string;
@@ -69,10 +69,7 @@ export class RatingResultsComponent {
     ];
   });
 
-  protected readonly previousText = computed(() => {
-    const before = this.rating().previousRecord;
-    return before ? `Change from the rating of record (rating ${before.id}, approved ${new Date(before.approvedAt).toLocaleDateString('en', { dateStyle: 'medium' })})` : 'First rating of this span: no rating of record to compare with';
-  });
+  protected readonly previousText = computed(() => previousRecordText(this.rating().previousRecord));
 
   private readonly vehicleNames = computed(() => new Map(this.rating().vehicles.map((vehicle) => [vehicle.id, vehicle.name])));
 

@@ -1,4 +1,4 @@
-import type { ControllingRating, HypotheticalDamage, RatingFigures } from '@spanledger/shared';
+import type { ComparedRatingOfRecord, ControllingRating, HypotheticalDamage, RatingFigures } from '@spanledger/shared';
 
 /** Rating factors are read to two decimals, as they are compared with 1.0. */
 export function ratingFactorText(ratingFactor: number | null): string {
@@ -44,4 +44,16 @@ export function whatIfText(whatIf: HypotheticalDamage, girderNumber: number | un
   const what = 'count' in entry && entry.count !== undefined ? `${entry.count} lost strand${entry.count === 1 ? '' : 's'} in row ${'rowId' in entry ? entry.rowId : ''}` : entry.kind;
   const place = entry.fromM !== undefined && entry.toM !== undefined ? ` from ${length(entry.fromM)} to ${length(entry.toM)}` : '';
   return `Girder ${girderNumber ?? whatIf.girderId}: ${what}${place}${whatIf.note ? ` — ${whatIf.note}` : ''}`;
+}
+
+/** A rating on file from before Spanledger was approved on a day, not at a moment: read in UTC so no time zone moves it. */
+const PRIOR_DAY = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeZone: 'UTC' });
+
+/** What a rating is compared with: Spanledger's rating of record, a rating on file from before Spanledger, or none. */
+export function previousRecordText(before: ComparedRatingOfRecord | null): string {
+  if (!before) return 'First rating of this span: no rating of record to compare with';
+  if (before.priorRating) {
+    return `Change from the rating on file from before Spanledger (approved ${PRIOR_DAY.format(new Date(`${before.priorRating.approvedOn}T00:00:00Z`))}; ${before.priorRating.sourceNote})`;
+  }
+  return `Change from the rating of record (rating ${before.id}, approved ${new Date(before.approvedAt).toLocaleDateString('en', { dateStyle: 'medium' })})`;
 }
