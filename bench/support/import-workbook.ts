@@ -1,7 +1,7 @@
 import { stat } from 'node:fs/promises';
 import ExcelJS from 'exceljs';
-import girderTypeCatalogue from '../../seeds/data/girder-types.json';
 import { seededRandom } from '../../seeds/demo-structures';
+import { inventedGirderRow, inventedSpanRow, inventedStrandRows, type InventedSpans } from '../../scripts/lib/invented-inventory-rows';
 import { IMPORT_TEMPLATES, type ImportTemplateName } from '../../shared/src';
 
 /**
@@ -39,32 +39,14 @@ const CROSSINGS = ['Clearwater Draw', 'Badger Creek', 'Switchgrass Run', 'Stony 
 const FIRST_STRUCTURE_NUMBER = 2001;
 const NOTE = 'Benchmark data, invented (bench/import-girders.bench.ts).';
 
-/** The demo's strand (seeds/demo-inventory.ts): 12.7 mm seven-wire strand, fpu 1860 MPa. */
-const DEMO_STRAND = { strand_area_mm2: 98.7, strand_diameter_mm: 12.7, fpu_mpa: 1860, fpy_mpa: 1674, eps_mpa: 196500 };
-const OVERHANG_MM = 900;
-const BARRIER_FACE_TO_GIRDER_MM = 450;
-
 type Cell = string | number | null;
 /** A row by the template's SI headers; headers left out are empty cells. */
 type SheetRecord = Readonly<Record<string, Cell>>;
 
 /** What one structure of the file is built from: the demo gives all spans of a structure the same girders. */
-interface PlannedStructure {
-  readonly structureNumber: string;
+interface PlannedStructure extends InventedSpans {
   readonly record: SheetRecord;
-  readonly lengthM: number;
-  readonly spacingMm: number;
-  readonly girderTypeName: string;
-  readonly concreteStrengthMpa: number;
   readonly strandCount: number;
-  readonly fpeMpa: number;
-}
-
-/** The catalogue type the demo builds a span of this length with (seeds/demo-inventory.ts), checked against the catalogue it loads. */
-function girderTypeFor(lengthM: number): string {
-  const name = lengthM < 18 ? 'AASHTO Type II I-girder' : lengthM < 24 ? 'AASHTO Type III I-girder' : 'AASHTO Type IV I-girder';
-  if (!girderTypeCatalogue.types.some((type) => type.name === name)) throw new Error(`${name} is not in seeds/data/girder-types.json`);
-  return name;
 }
 
 function plannedStructures(count: number): PlannedStructure[] {
@@ -102,7 +84,7 @@ function plannedStructures(count: number): PlannedStructure[] {
       },
       lengthM,
       spacingMm: Math.round(between(2100, 2700) / 50) * 50,
-      girderTypeName: girderTypeFor(lengthM),
+      girdersPerSpan: GIRDERS_PER_SPAN,
       concreteStrengthMpa: whole(41, 55),
       // One bottom row per girder, sized to the span as the demo's first row is, at most 12 strands.
       strandCount: Math.min(12, Math.round(6 + lengthM * 0.2)),
@@ -111,62 +93,15 @@ function plannedStructures(count: number): PlannedStructure[] {
   });
 }
 
-function spanRecord(planned: PlannedStructure, spanIndex: number): SheetRecord {
-  return {
-    structure_number: planned.structureNumber,
-    span_index: spanIndex,
-    span_length_m: planned.lengthM,
-    girder_spacing_mm: planned.spacingMm,
-    overhang_mm: OVERHANG_MM,
-    roadway_width_mm: (GIRDERS_PER_SPAN - 1) * planned.spacingMm + 2 * OVERHANG_MM - 2 * BARRIER_FACE_TO_GIRDER_MM,
-    barrier_face_to_girder_mm: BARRIER_FACE_TO_GIRDER_MM,
-    deck_thickness_mm: 200,
-    haunch_mm: 25,
-    wearing_surface_thickness_mm: 60,
-    wearing_surface_unit_weight_kn_m3: 23,
-    wearing_surface_measured: 'no',
-    wearing_surface_kind: 'overlay',
-    barrier_loads_kn_m: '7.5;7.5',
-  };
-}
-
-function girderRecord(planned: PlannedStructure, spanIndex: number, girderNumber: number): SheetRecord {
-  return {
-    structure_number: planned.structureNumber,
-    span_index: spanIndex,
-    girder_number: girderNumber,
-    position: girderNumber === 1 || girderNumber === GIRDERS_PER_SPAN ? 'exterior' : 'interior',
-    girder_type: planned.girderTypeName,
-    concrete_strength_mpa: planned.concreteStrengthMpa,
-    concrete_basis: 'cylinder',
-    concrete_unit_weight_kn_m3: 24,
-    deck_concrete_strength_mpa: 30,
-    deck_concrete_basis: 'cylinder',
-    tensioning: 'pre',
-  };
-}
-
-function strandRowRecord(planned: PlannedStructure, spanIndex: number, girderNumber: number): SheetRecord {
-  return {
-    structure_number: planned.structureNumber,
-    span_index: spanIndex,
-    girder_number: girderNumber,
-    row_id: 'r1',
-    y_mm: 50,
-    strand_count: planned.strandCount,
-    ...DEMO_STRAND,
-    fpe_mpa: planned.fpeMpa,
-    bonded: 'yes',
-  };
-}
-
 /** The records of one sheet for one structure, in file order. */
 function recordsOf(sheet: BenchImportSheet, planned: PlannedStructure): SheetRecord[] {
   if (sheet === 'structures') return [planned.record];
   const spanIndices = Array.from({ length: SPANS_PER_STRUCTURE }, (_, offset) => offset + 1);
-  if (sheet === 'spans') return spanIndices.map((spanIndex) => spanRecord(planned, spanIndex));
-  const perGirder = sheet === 'girders' ? girderRecord : strandRowRecord;
-  return spanIndices.flatMap((spanIndex) => Array.from({ length: GIRDERS_PER_SPAN }, (_, offset) => perGirder(planned, spanIndex, offset + 1)));
+  if (sheet === 'spans') return spanIndices.map((spanIndex) => inventedSpanRow(planned, spanIndex));
+  // One bottom strand row per girder.
+  const perGirder = (spanIndex: number, girderNumber: number) =>
+    sheet === 'girders' ? [inventedGirderRow(planned, spanIndex, girderNumber)] : inventedStrandRows(planned, spanIndex, girderNumber, [planned.strandCount]);
+  return spanIndices.flatMap((spanIndex) => Array.from({ length: GIRDERS_PER_SPAN }, (_, offset) => perGirder(spanIndex, offset + 1)).flat());
 }
 
 /** One sheet as the XLSX templates lay it out (shared/src/imports/templates.ts): every column, text columns as text. */

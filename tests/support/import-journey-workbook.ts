@@ -1,5 +1,5 @@
-import girderTypeCatalogue from '../../seeds/data/girder-types.json';
 import { seededRandom } from '../../seeds/demo-structures';
+import { inventedGirderRow, inventedSpanRow, inventedStrandRows, type InventedSpans } from '../../scripts/lib/invented-inventory-rows';
 import { IMPORT_TEMPLATES, type ImportTemplateName } from '../../shared/src';
 import { sampleWorkbook, type SampleCell, type SampleSheet } from '../../scripts/write-import-samples';
 
@@ -41,24 +41,8 @@ const CROSSINGS = [
 ];
 const NOTE = 'Invented for the imports browser journey (tests/browser/imports.test.ts).';
 
-/** The demo's strand (seeds/demo-inventory.ts): 12.7 mm seven-wire strand, fpu 1860 MPa. */
-const DEMO_STRAND = { strand_area_mm2: 98.7, strand_diameter_mm: 12.7, fpu_mpa: 1860, fpy_mpa: 1674, eps_mpa: 196500 };
-/** The demo's deck edge (seeds/demo-inventory.ts); common practice, no source. */
-const OVERHANG_MM = 900;
-const BARRIER_FACE_TO_GIRDER_MM = 450;
-
-/** The catalogue type the demo builds a span of this length with (seeds/demo-inventory.ts), checked against the catalogue it loads. */
-function girderTypeFor(lengthM: number): string {
-  const name = lengthM < 18 ? 'AASHTO Type II I-girder' : lengthM < 24 ? 'AASHTO Type III I-girder' : 'AASHTO Type IV I-girder';
-  if (!girderTypeCatalogue.types.some((type) => type.name === name)) throw new Error(`${name} is not in seeds/data/girder-types.json`);
-  return name;
-}
-
-interface PlannedStructure {
+interface PlannedStructure extends InventedSpans {
   readonly record: SheetRecord;
-  readonly lengthM: number;
-  readonly spacingMm: number;
-  readonly concreteStrengthMpa: number;
   /** Strands of the bottom row and of the row above it, by the demo's rule for the span's length. */
   readonly strandCounts: readonly [number, number];
   readonly fpeMpa: number;
@@ -77,6 +61,8 @@ function plannedStructures(): PlannedStructure[] {
     // seeds/demo-inventory.ts: bottom strands 8 + 0.55 per metre of span (+ up to 4), 12 to a row, at least 4 in the second.
     const bottomStrands = Math.min(24, Math.round(8 + lengthM * 0.55 + random() * 4));
     return {
+      structureNumber,
+      girdersPerSpan: GIRDERS_PER_SPAN,
       record: {
         structure_number: structureNumber,
         name: `${crossing} Bridge near ${EAST_DISTRICT.towns[index % EAST_DISTRICT.towns.length]}`,
@@ -109,65 +95,15 @@ function plannedStructures(): PlannedStructure[] {
 const spanIndices = () => Array.from({ length: SPANS_PER_STRUCTURE }, (_, offset) => offset + 1);
 const girderNumbers = () => Array.from({ length: GIRDERS_PER_SPAN }, (_, offset) => offset + 1);
 
-function spanRecord(planned: PlannedStructure, spanIndex: number): SheetRecord {
-  return {
-    structure_number: planned.record['structure_number']!,
-    span_index: spanIndex,
-    span_length_m: planned.lengthM,
-    girder_spacing_mm: planned.spacingMm,
-    overhang_mm: OVERHANG_MM,
-    roadway_width_mm: (GIRDERS_PER_SPAN - 1) * planned.spacingMm + 2 * OVERHANG_MM - 2 * BARRIER_FACE_TO_GIRDER_MM,
-    barrier_face_to_girder_mm: BARRIER_FACE_TO_GIRDER_MM,
-    deck_thickness_mm: 200,
-    haunch_mm: 25,
-    wearing_surface_thickness_mm: 60,
-    wearing_surface_unit_weight_kn_m3: 23,
-    wearing_surface_measured: 'no',
-    wearing_surface_kind: 'overlay',
-    barrier_loads_kn_m: '7.5;7.5',
-  };
-}
-
-function girderRecord(planned: PlannedStructure, spanIndex: number, girderNumber: number): SheetRecord {
-  return {
-    structure_number: planned.record['structure_number']!,
-    span_index: spanIndex,
-    girder_number: girderNumber,
-    position: girderNumber === 1 || girderNumber === GIRDERS_PER_SPAN ? 'exterior' : 'interior',
-    girder_type: girderTypeFor(planned.lengthM),
-    concrete_strength_mpa: planned.concreteStrengthMpa,
-    concrete_basis: 'cylinder',
-    concrete_unit_weight_kn_m3: 24,
-    deck_concrete_strength_mpa: 30,
-    deck_concrete_basis: 'cylinder',
-    tensioning: 'pre',
-  };
-}
-
-/** Two bottom rows at the demo's 50 mm pitch (seeds/demo-inventory.ts). */
-function strandRowRecords(planned: PlannedStructure, spanIndex: number, girderNumber: number): SheetRecord[] {
-  return planned.strandCounts.map((count, index) => ({
-    structure_number: planned.record['structure_number']!,
-    span_index: spanIndex,
-    girder_number: girderNumber,
-    row_id: `r${index + 1}`,
-    y_mm: 50 + 50 * index,
-    strand_count: count,
-    ...DEMO_STRAND,
-    fpe_mpa: planned.fpeMpa,
-    bonded: 'yes',
-  }));
-}
-
 /** The clean workbook's rows, sheet by sheet, in file order. */
 export function journeyRecords(): JourneyRecords {
   const structures = plannedStructures();
   const eachGirder = structures.flatMap((planned) => spanIndices().flatMap((spanIndex) => girderNumbers().map((girderNumber) => ({ planned, spanIndex, girderNumber }))));
   return {
     structures: structures.map((planned) => planned.record),
-    spans: structures.flatMap((planned) => spanIndices().map((spanIndex) => spanRecord(planned, spanIndex))),
-    girders: eachGirder.map(({ planned, spanIndex, girderNumber }) => girderRecord(planned, spanIndex, girderNumber)),
-    'strand-rows': eachGirder.flatMap(({ planned, spanIndex, girderNumber }) => strandRowRecords(planned, spanIndex, girderNumber)),
+    spans: structures.flatMap((planned) => spanIndices().map((spanIndex) => inventedSpanRow(planned, spanIndex))),
+    girders: eachGirder.map(({ planned, spanIndex, girderNumber }) => inventedGirderRow(planned, spanIndex, girderNumber)),
+    'strand-rows': eachGirder.flatMap(({ planned, spanIndex, girderNumber }) => inventedStrandRows(planned, spanIndex, girderNumber, planned.strandCounts)),
   };
 }
 

@@ -19,7 +19,7 @@ import { countText, countsRows, countsSummary, problemColumnText, problemCountTe
   selector: 'sl-import-check',
   imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatTableModule, RouterLink],
   templateUrl: './import-check.component.html',
-  styleUrls: ['../structures/inventory-table.scss', './import-check.component.scss'],
+  styleUrls: ['../structures/inventory-table.scss', './import-state-chip.scss', './import-check.component.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ImportCheckComponent {

@@ -12,7 +12,7 @@ import { countsSummary, problemCountText } from './imports-text';
   selector: 'sl-import-history',
   imports: [MatTableModule, RouterLink],
   templateUrl: './import-history.component.html',
-  styleUrls: ['../structures/inventory-table.scss', './import-history.component.scss'],
+  styleUrls: ['../structures/inventory-table.scss', './import-state-chip.scss', './import-history.component.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ImportHistoryComponent {
