@@ -3,6 +3,7 @@ import { createServer, type Server } from 'node:http';
 import { createApp } from './app';
 import type { AppConfig } from './config';
 import { createDatabase, type Database } from './db/database';
+import { keepHeapGrowthModest } from './heap-growth';
 import { runQueuedCommit } from './imports/imports.service';
 import { startBackgroundJobs } from './jobs/background-jobs';
 import { createLogger, type Logger } from './logger';
@@ -17,6 +18,7 @@ export interface RunningServer {
 
 /** Starts the HTTP server on the configured host and port (0 picks a free one). */
 export async function startServer(config: AppConfig): Promise<RunningServer> {
+  keepHeapGrowthModest();
   const logger = createLogger(config.logLevel);
   const db = createDatabase(config.databaseUrl);
   const jobs = await startBackgroundJobs(config.databaseUrl, logger, { 'import-commit': (data) => runQueuedCommit(db, data as { importId: number; userId: number }) });

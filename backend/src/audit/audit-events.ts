@@ -1,5 +1,6 @@
 import type { SignedInUser } from '../../../shared/src';
 import type { Database, Transaction } from '../db/database';
+import { insertJsonRows } from '../db/json-rows-insert';
 import { inChunks } from '../db/many-created';
 
 /** A thing a change happened to: its kind (`structure`, `user`, …) and its id. */
@@ -34,21 +35,16 @@ export async function recordAuditEvent({ db, user, ...event }: AuditEventInput):
   await recordAuditEvents(db, user, [event]);
 }
 
-/** Rows per insert statement when many events are written at once: well under PostgreSQL's 65 535 bind parameters. */
+/** Events per insert statement when many are written at once: a few megabytes of JSON text each. */
 const EVENTS_PER_INSERT = 2000;
 
 /** Appends many events by one user in a few statements — an import writes thousands — in the order given. */
 export async function recordAuditEvents(db: Database | Transaction, user: Pick<SignedInUser, 'id'> | null, events: readonly Omit<AuditEventInput, 'db' | 'user'>[]): Promise<void> {
   for (const chunk of inChunks(events, EVENTS_PER_INSERT)) {
-    await db('audit_events').insert(
-      chunk.map(({ action, entity, before = null, after = null }) => ({
-        user_id: user?.id ?? null,
-        action,
-        entity_type: entity.type,
-        entity_id: String(entity.id),
-        before: before === null ? null : JSON.stringify(before),
-        after: after === null ? null : JSON.stringify(after),
-      })),
+    await insertJsonRows(
+      db,
+      'audit_events',
+      chunk.map(({ action, entity, before = null, after = null }) => ({ user_id: user?.id ?? null, action, entity_type: entity.type, entity_id: String(entity.id), before, after })),
     );
   }
 }

@@ -1,5 +1,6 @@
 import type { StoredGirder } from './girder-calc-file';
 import type { Database, Transaction } from '../db/database';
+import { insertJsonRows } from '../db/json-rows-insert';
 import { inChunks } from '../db/many-created';
 
 /** A girder of a span with what its list shows: its type's name and its strand rows counted. */
@@ -199,7 +200,6 @@ export type GirderColumns = Pick<GirderRow, 'position' | 'girder_type_id' | 'sec
 
 const GIRDER_JSON_COLUMNS = ['section', 'section_overrides', 'concrete', 'deck_concrete', 'losses', 'profiles', 'debonding', 'bars'] as const;
 
-/** Writes the girder and replaces its strand rows as a whole, when the row still has the version read. */
 /** JSON columns go to the driver as text: node-postgres would write a JavaScript array as a PostgreSQL array. */
 function girderValues(columns: GirderColumns): Record<string, unknown> {
   const values: Record<string, unknown> = { ...columns };
@@ -213,8 +213,11 @@ async function insertStrandRows(trx: Transaction, girderId: number, strandRows: 
 
 /** Strand rows of many girders in a few statements, each girder's in the order given. */
 async function insertStrandRowsOfGirders(trx: Transaction, girders: readonly { girderId: number; strandRows: readonly StrandRowRecord[] }[], userId: number): Promise<void> {
-  const values = girders.flatMap(({ girderId, strandRows }) => strandRows.map((row, rowOrder) => ({ ...row, girder_id: girderId, row_order: rowOrder, created_by: userId, updated_by: userId })));
-  for (const chunk of inChunks(values, ROWS_PER_INSERT)) await trx('strand_rows').insert(chunk);
+  const values: Record<string, unknown>[] = [];
+  for (const { girderId, strandRows } of girders) {
+    for (let rowOrder = 0; rowOrder < strandRows.length; rowOrder += 1) values.push({ ...strandRows[rowOrder], girder_id: girderId, row_order: rowOrder, created_by: userId, updated_by: userId });
+  }
+  for (const chunk of inChunks(values, ROWS_PER_INSERT)) await insertJsonRows(trx, 'strand_rows', chunk);
 }
 
 export async function insertGirder(trx: Transaction, spanId: number, girderNumber: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<number> {
@@ -230,16 +233,19 @@ export interface GirderInsert {
   readonly strandRows: readonly StrandRowRecord[];
 }
 
-/** Rows per insert statement: a girder row has fewer than 20 columns, so this stays far under 65 535 parameters. */
+/** Rows per insert statement: a few megabytes of JSON text. */
 const ROWS_PER_INSERT = 1000;
 
 /** Inserts girders with their strand rows in a few statements; gives back their ids in the order given. */
 export async function insertGirders(trx: Transaction, girders: readonly GirderInsert[], userId: number): Promise<number[]> {
   const ids: number[] = [];
   for (const chunk of inChunks(girders, ROWS_PER_INSERT)) {
-    const inserted: { id: number; span_id: number; girder_number: number }[] = await trx('girders')
-      .insert(chunk.map((girder) => ({ ...girderValues(girder.columns), span_id: girder.spanId, girder_number: girder.girderNumber, created_by: userId, updated_by: userId })))
-      .returning(['id', 'span_id', 'girder_number']);
+    const inserted = await insertJsonRows<{ id: number; span_id: number; girder_number: number }>(
+      trx,
+      'girders',
+      chunk.map((girder) => ({ ...girder.columns, span_id: girder.spanId, girder_number: girder.girderNumber, created_by: userId, updated_by: userId })),
+      ['id', 'span_id', 'girder_number'],
+    );
     // Matched by (span, number), which is unique, rather than trusting the order RETURNING gives.
     const idOf = new Map(inserted.map((row) => [`${row.span_id}/${row.girder_number}`, row.id]));
     const chunkIds = chunk.map((girder) => idOf.get(`${girder.spanId}/${girder.girderNumber}`)!);
@@ -249,6 +255,7 @@ export async function insertGirders(trx: Transaction, girders: readonly GirderIn
   return ids;
 }
 
+/** Writes the girder and replaces its strand rows as a whole, when the row still has the version read. */
 export async function updateGirder(trx: Transaction, id: number, expectedVersion: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<boolean> {
   const values = girderValues(columns);
   const updated = await trx('girders')

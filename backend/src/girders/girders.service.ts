@@ -3,6 +3,7 @@ import { recordAuditEvent, recordAuditEvents } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { onlyCreatedId, type ManyCreated } from '../db/many-created';
+import { WritesInFlight } from '../db/writes-in-flight';
 import { markSpansReratingDue } from '../ratings/ratings.repository';
 import { AppError } from '../http/app-error';
 import { findSpanById, findSpansWithPlace, type SpanRow } from '../spans/spans.repository';
@@ -166,7 +167,7 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
  */
 function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number, passed?: Set<string>): void {
   const rateFile = rateFileOf(record, typeSection, span, girderNumber, skewDeg);
-  const key = passed ? rateFileKey(rateFile) : null;
+  const key = passed && isPlainJson(rateFile) ? JSON.stringify(rateFile) : null;
   if (key !== null && passed!.has(key)) return;
   const parsed = parseRateFile(rateFile);
   if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
@@ -174,20 +175,30 @@ function assertRateable(record: GirderRecord, typeSection: Record<string, unknow
 }
 
 /**
- * The whole calculation file as text, for `assertRateable` to know a file it has already passed:
- * the engine's check is a pure function of the file, and the girders of a span, and the spans of
- * a structure, are often alike. Values JSON would blur — undefined, non-finite numbers, -0 — get
- * marks of their own (as does text that starts like a mark), so two files with one key are the same file.
+ * Whether JSON text says all there is of a value — only objects, arrays, text, booleans, null
+ * and finite numbers other than -0, nothing undefined — so that `assertRateable` may know a file
+ * it has already passed by its text: the engine's check is a pure function of the file, and the
+ * girders of a span, and the spans of a structure, are often alike. Any other file is checked.
  */
-function rateFileKey(rateFile: unknown): string {
-  return JSON.stringify(rateFile, function (this: Record<string, unknown>, key, value: unknown) {
-    const own = this[key];
-    if (own === undefined) return '\u0000undefined';
-    if (typeof own === 'string' && own.startsWith('\u0000')) return `\u0000${own}`;
-    if (own instanceof Date) return `\u0000date:${own.getTime()}`;
-    if (typeof own === 'number' && (!Number.isFinite(own) || Object.is(own, -0))) return `\u0000number:${Object.is(own, -0) ? '-0' : String(own)}`;
-    return value;
-  });
+function isPlainJson(value: unknown): boolean {
+  switch (typeof value) {
+    case 'string':
+    case 'boolean':
+      return true;
+    case 'number':
+      return Number.isFinite(value) && !Object.is(value, -0);
+    case 'object':
+      if (value === null) return true;
+      if (Array.isArray(value)) {
+        for (const item of value) if (!isPlainJson(item)) return false;
+        return true;
+      }
+      if (Object.getPrototypeOf(value) !== Object.prototype) return false;
+      for (const key in value) if (!isPlainJson((value as Record<string, unknown>)[key])) return false;
+      return true;
+    default:
+      return false;
+  }
 }
 
 /**
@@ -265,27 +276,52 @@ export async function createGirders({ db, user }: { db: Database | Transaction; 
     const spans = new Map((await findSpansWithPlace(trx, [...new Set(girders.map((girder) => girder.spanId))])).map((span) => [span.id, span]));
     const types = new Map((await findGirderTypes(trx)).map((type) => [type.id, type]));
     const refused = new Map<number, AppError>();
-    const accepted: { index: number; girder: NewGirder; insert: GirderInsert }[] = [];
-    const passedRateFiles = new Set<string>();
-    girders.forEach((girder, index) => {
-      try {
-        accepted.push({ index, girder, insert: checkedNewGirder(user, spans.get(girder.spanId), types, girder, passedRateFiles) });
-      } catch (error) {
-        if (!(error instanceof AppError)) throw error;
-        refused.set(index, error);
-      }
-    });
-    const ids = await insertGirders(trx, accepted.map((each) => each.insert), user.id);
-    await recordAuditEvents(
-      trx,
-      user,
-      accepted.map(({ girder: { spanId, girderNumber, record } }, at) => ({ action: 'girder.created', entity: { type: 'girder', id: ids[at]! }, after: { spanId, girderNumber, ...record } })),
-    );
-    await markSpansReratingDue(trx, [...new Set(accepted.map((each) => each.girder.spanId))]);
     const idsInOrder: (number | null)[] = girders.map(() => null);
-    accepted.forEach((each, at) => (idsInOrder[each.index] = ids[at]!));
+    const passedRateFiles = new Set<string>();
+    const writes = new WritesInFlight();
+    try {
+      for (let start = 0; start < girders.length; start += GIRDERS_PER_STEP) {
+        const accepted: AcceptedGirder[] = [];
+        for (let index = start; index < Math.min(start + GIRDERS_PER_STEP, girders.length); index += 1) {
+          try {
+            accepted.push({ index, girder: girders[index]!, insert: checkedNewGirder(user, spans.get(girders[index]!.spanId), types, girders[index]!, passedRateFiles) });
+          } catch (error) {
+            if (!(error instanceof AppError)) throw error;
+            refused.set(index, error);
+          }
+        }
+        writes.send(writeCheckedGirders(trx, user, accepted, idsInOrder));
+        await writes.letThemGo();
+      }
+    } finally {
+      await writes.drain();
+    }
+    await markSpansReratingDue(trx, [...new Set(girders.flatMap((girder, index) => (idsInOrder[index] === null ? [] : [girder.spanId])))]);
     return { ids: idsInOrder, refused };
   });
+}
+
+/**
+ * Girders checked at a time: while the database writes one step's girders, the engine checks
+ * the next step's.
+ */
+const GIRDERS_PER_STEP = 500;
+
+interface AcceptedGirder {
+  readonly index: number;
+  readonly girder: NewGirder;
+  readonly insert: GirderInsert;
+}
+
+/** One step's checked girders written with their history; their new ids set at their indexes. */
+async function writeCheckedGirders(trx: Transaction, user: SignedInUser, accepted: readonly AcceptedGirder[], idsInOrder: (number | null)[]): Promise<void> {
+  const ids = await insertGirders(trx, accepted.map((each) => each.insert), user.id);
+  await recordAuditEvents(
+    trx,
+    user,
+    accepted.map(({ girder: { spanId, girderNumber, record } }, at) => ({ action: 'girder.created', entity: { type: 'girder', id: ids[at]! }, after: { spanId, girderNumber, ...record } })),
+  );
+  accepted.forEach((each, at) => (idsInOrder[each.index] = ids[at]!));
 }
 
 /** One new girder checked against its span, the user's districts and the catalogue, as the columns to insert. */

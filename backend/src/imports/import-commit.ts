@@ -42,13 +42,21 @@ class WrittenRecords {
   readonly girders = new Map<string, number>();
 }
 
+/** The checked rows as the commit reads them: a template's rows a page at a time, in file order, so the whole file is never held at once. */
+export interface CheckedRows {
+  readonly total: number;
+  pagesOf(template: ImportTemplateName): AsyncIterable<readonly AnyConvertedRow[]>;
+}
+
 /** What the commit needs to know of the file as a whole: how many girders each new span gets, and each girder's strand rows. */
-function fileFacts(rows: readonly AnyConvertedRow[]) {
+async function fileFacts(checked: CheckedRows) {
   const girdersPerSpan = new Map<string, number>();
   const strandRowsOfGirder = new Map<string, StrandRow[]>();
-  for (const row of rows) {
-    if (row.template === 'girders') girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
-    if (row.template === 'strand-rows') {
+  for await (const page of checked.pagesOf('girders')) {
+    for (const row of page as readonly ConvertedRow<'girders'>[]) girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
+  }
+  for await (const page of checked.pagesOf('strand-rows')) {
+    for (const row of page as readonly ConvertedRow<'strand-rows'>[]) {
       const key = girderKey(row.body);
       const known = strandRowsOfGirder.get(key);
       if (known) known.push(row.body.strandRow);
@@ -58,7 +66,7 @@ function fileFacts(rows: readonly AnyConvertedRow[]) {
   return { girdersPerSpan, strandRowsOfGirder };
 }
 
-type Facts = ReturnType<typeof fileFacts>;
+type Facts = Awaited<ReturnType<typeof fileFacts>>;
 
 interface Writer {
   readonly trx: Transaction;
@@ -276,12 +284,12 @@ const NEW_ROWS_WRITERS: Partial<Record<ImportTemplateName, NewRowsWriter>> = {
  * batches, changes one by one. A row a service refuses becomes a problem at that row; the
  * caller rolls everything back when there is any.
  */
-export async function writeRows(trx: Transaction, user: SignedInUser, rows: readonly AnyConvertedRow[], onProgress: CommitProgress): Promise<ImportProblem[]> {
+export async function writeRows(trx: Transaction, user: SignedInUser, checked: CheckedRows, onProgress: CommitProgress): Promise<ImportProblem[]> {
   const writer: Writer = {
     trx,
     user,
     written: new WrittenRecords(),
-    facts: fileFacts(rows),
+    facts: await fileFacts(checked),
     girderTypeIds: new Map((await findGirderTypes(trx)).map((type) => [type.name.toLowerCase(), type.id])),
     spansGainingGirders: new Set(),
   };
@@ -290,19 +298,20 @@ export async function writeRows(trx: Transaction, user: SignedInUser, rows: read
   const strandRowsDone = new Set<string>();
   let done = 0;
   for (const template of WRITE_ORDER) {
-    const ofTemplate = rows.filter((row) => row.template === template);
-    for (const batch of inChunks(ofTemplate, ROWS_PER_BATCH)) {
-      const oneByOne = (await NEW_ROWS_WRITERS[template]?.(writer, batch, refuse)) ?? batch;
-      for (const row of oneByOne) {
-        try {
-          await writeRow(writer, row, strandRowsDone);
-        } catch (error) {
-          if (!(error instanceof AppError)) throw error;
-          refuse(row, error);
+    for await (const page of checked.pagesOf(template)) {
+      for (const batch of inChunks(page, ROWS_PER_BATCH)) {
+        const oneByOne = (await NEW_ROWS_WRITERS[template]?.(writer, batch, refuse)) ?? batch;
+        for (const row of oneByOne) {
+          try {
+            await writeRow(writer, row, strandRowsDone);
+          } catch (error) {
+            if (!(error instanceof AppError)) throw error;
+            refuse(row, error);
+          }
         }
+        done += batch.length;
+        await onProgress(done, checked.total);
       }
-      done += batch.length;
-      await onProgress(done, rows.length);
     }
   }
   if (problems.length === 0) await recountGirders(trx, [...writer.spansGainingGirders]);

@@ -1,5 +1,6 @@
 import type { AnyConvertedRow, ImportCounts, ImportProblem, ImportState, ImportTemplateName } from '../../../shared/src';
 import type { Database, Transaction } from '../db/database';
+import { inChunks } from '../db/many-created';
 
 type Db = Database | Transaction;
 
@@ -82,30 +83,44 @@ export async function insertCheckedImport(db: Db, columns: CheckedImportColumns,
   return (row as { id: number }).id;
 }
 
-/** The checked rows, in file order, kept so a commit writes exactly what was checked. */
-export async function insertImportRows(trx: Db, importId: number, rows: readonly AnyConvertedRow[]): Promise<void> {
-  const CHUNK = 1000;
-  for (let start = 0; start < rows.length; start += CHUNK) {
-    await trx('import_rows').insert(
-      rows.slice(start, start + CHUNK).map((row, offset) => ({
-        import_id: importId,
-        position: start + offset,
-        template: row.template,
-        sheet: row.sheet,
-        row_number: row.rowNumber,
-        key_columns: row.keyColumns,
-        body: JSON.stringify(row.body),
-      })),
-    );
+/** Rows of one template per stored page: the commit holds one page in memory at a time. */
+export const ROWS_PER_PAGE = 5000;
+
+/** Where a page of checked rows is kept: a template's rows are numbered 0, 1, … in file order. */
+export interface ImportRowPageKey {
+  readonly template: ImportTemplateName;
+  readonly page: number;
+}
+
+/** The checked rows, each template's in file order, kept in pages so a commit writes exactly what was checked. */
+export async function insertImportRowPages(trx: Db, importId: number, rows: readonly AnyConvertedRow[]): Promise<void> {
+  const byTemplate = new Map<ImportTemplateName, AnyConvertedRow[]>();
+  for (const row of rows) {
+    const ofTemplate = byTemplate.get(row.template);
+    if (ofTemplate) ofTemplate.push(row);
+    else byTemplate.set(row.template, [row]);
+  }
+  for (const [template, ofTemplate] of byTemplate) {
+    let page = 0;
+    for (const chunk of inChunks(ofTemplate, ROWS_PER_PAGE)) {
+      await trx('import_row_pages').insert({ import_id: importId, template, page, row_count: chunk.length, rows: JSON.stringify(chunk) });
+      page += 1;
+    }
   }
 }
 
-export async function findImportRows(db: Db, importId: number): Promise<AnyConvertedRow[]> {
-  const rows: { template: ImportTemplateName; sheet: string; row_number: number; key_columns: string; body: unknown }[] = await db('import_rows')
-    .where({ import_id: importId })
-    .orderBy('position')
-    .select('template', 'sheet', 'row_number', 'key_columns', 'body');
-  return rows.map((row) => ({ template: row.template, sheet: row.sheet, rowNumber: row.row_number, keyColumns: row.key_columns, body: row.body }) as AnyConvertedRow);
+/** The pages of an import's checked rows, by template and page. */
+export async function findImportRowPageKeys(db: Db, importId: number): Promise<ImportRowPageKey[]> {
+  return db('import_row_pages').where({ import_id: importId }).orderBy(['template', 'page']).select('template', 'page');
+}
+
+export async function findImportRowPage(db: Db, importId: number, { template, page }: ImportRowPageKey): Promise<AnyConvertedRow[]> {
+  const row = await db('import_row_pages').where({ import_id: importId, template, page }).first('rows');
+  return (row?.rows as AnyConvertedRow[] | undefined) ?? [];
+}
+
+export async function deleteImportRowPages(db: Db, importId: number): Promise<void> {
+  await db('import_row_pages').where({ import_id: importId }).delete();
 }
 
 /** The import row locked for a step, with who uploaded it. */
@@ -139,6 +154,6 @@ export async function updateImportProgress(db: Db, id: number, done: number, tot
 }
 
 export async function countImportRows(db: Db, importId: number): Promise<number> {
-  const [row] = await db('import_rows').where({ import_id: importId }).count<{ count: string }[]>('* as count');
-  return Number(row!.count);
+  const [row] = await db('import_row_pages').where({ import_id: importId }).sum<{ sum: string | null }[]>('row_count as sum');
+  return Number(row?.sum ?? 0);
 }

@@ -7,17 +7,19 @@ import { toSignedInUser } from '../auth/auth.service';
 import { findUserById } from '../users/users.repository';
 import { judgeAgainstRegister, readAndConvert, templateNamed } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
-import { writeRows, type CommitProgress } from './import-commit';
+import { writeRows, type CheckedRows, type CommitProgress } from './import-commit';
 import {
   countImportRows,
   findCommittedImportOfContent,
   findImportById,
   findImportForStep,
   findImportProblems,
-  findImportRows,
+  deleteImportRowPages,
+  findImportRowPage,
+  findImportRowPageKeys,
   findImports,
   insertCheckedImport,
-  insertImportRows,
+  insertImportRowPages,
   updateImportProgress,
   updateImportState,
   type ImportRow,
@@ -119,7 +121,7 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   const id = await withTransaction(db, async (trx) => {
     const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
-    if (problems.length === 0) await insertImportRows(trx, inserted, read.rows);
+    if (problems.length === 0) await insertImportRowPages(trx, inserted, read.rows);
     await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts: judged.counts, problemCount: problems.length } });
     return inserted;
   });
@@ -196,11 +198,24 @@ async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: numb
   await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
   const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
   if (earlier) throw importedBefore(earlier);
-  const problems = await writeRows(trx, user, await findImportRows(trx, row.id), onProgress);
+  const problems = await writeRows(trx, user, await checkedRowsOf(trx, row.id), onProgress);
   await options.afterRowsWritten?.();
   if (problems.length > 0) throw new CommitRefused(problems);
+  // Written into the register, the rows as checked are of no further use.
+  await deleteImportRowPages(trx, row.id);
   await updateImportState(trx, row.id, { state: 'committed', committed: true, progress: null }, user.id);
   await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id: row.id }, after: { contentSha256: row.content_sha256 } });
+}
+
+/** An import's checked rows, read from the database a page at a time as the commit asks for them. */
+async function checkedRowsOf(trx: Transaction, importId: number): Promise<CheckedRows> {
+  const keys = await findImportRowPageKeys(trx, importId);
+  return {
+    total: await countImportRows(trx, importId),
+    async *pagesOf(template) {
+      for (const key of keys) if (key.template === template) yield await findImportRowPage(trx, importId, key);
+    },
+  };
 }
 
 async function markFailed(db: Database, user: SignedInUser, id: number, problems: readonly ImportProblem[]): Promise<void> {
@@ -263,7 +278,7 @@ export async function discardImport({ db, user }: Writer, id: number, version: n
   await withTransaction(db, async (trx) => {
     await importForStep(trx, user, id, version);
     await updateImportState(trx, id, { state: 'discarded' }, user.id);
-    await trx('import_rows').where({ import_id: id }).delete();
+    await deleteImportRowPages(trx, id);
     await recordAuditEvent({ db: trx, user, action: 'import.discarded', entity: { type: 'import', id } });
   });
   return toDetail(db, (await findImportById(db, id))!, user);
