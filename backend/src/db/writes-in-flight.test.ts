@@ -3,8 +3,11 @@ import { WritesInFlight } from './writes-in-flight';
 /** A write that settles after `turns` turns of the event loop, the way a statement's answer arrives. */
 function writeSettlingAfter<T>(turns: number, outcome: () => T): Promise<T> {
   return new Promise((resolve, reject) => {
-    const step = (left: number) => {
-      if (left > 0) return setImmediate(() => step(left - 1));
+    const step = (left: number): void => {
+      if (left > 0) {
+        setImmediate(() => step(left - 1));
+        return;
+      }
       try {
         resolve(outcome());
       } catch (error) {

@@ -121,9 +121,10 @@ function escapesArchive(name: string): boolean {
 }
 
 /**
- * The spreadsheet reader unpacks by walking the local headers from the start of the file, not by the
- * directory checked above. So every local header must agree with its directory entry and the entries
- * must sit back to back from byte 0 to the directory: nothing unchecked can hide between them.
+ * Our reader finds each part by the directory checked above, but other zip readers walk the local
+ * headers from the start of the file. So every local header must agree with its directory entry and
+ * the entries must sit back to back from byte 0 to the directory: nothing unchecked can hide between
+ * them, and every reader sees the same parts.
  */
 async function checkLocalHeadersMatch(file: FileHandle, directory: ZipDirectory): Promise<LocatedZipEntry[]> {
   const byOffset = [...directory.entries].sort((a, b) => a.localHeaderOffset - b.localHeaderOffset);

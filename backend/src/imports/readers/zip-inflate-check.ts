@@ -73,7 +73,7 @@ class DeclaredSizeCounter extends Writable {
 }
 
 /** zlib reports bad compressed data with codes such as Z_DATA_ERROR and Z_BUF_ERROR; file system errors stay as they are. */
-function isZlibError(error: unknown): boolean {
+export function isZlibError(error: unknown): boolean {
   const code = (error as { code?: unknown } | null)?.code;
   return typeof code === 'string' && code.startsWith('Z_');
 }
