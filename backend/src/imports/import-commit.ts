@@ -11,6 +11,7 @@ import {
 } from '../../../shared/src';
 import type { Transaction } from '../db/database';
 import { inChunks } from '../db/many-created';
+import { ROWS_PER_PAGE } from './imports.repository';
 import { toGirderRecord } from '../girders/girder-record';
 import { findGirderById, findGirdersOfSpans, findGirderTypes, findStrandRows } from '../girders/girders.repository';
 import { changeGirder, createGirder, createGirders, type NewGirder } from '../girders/girders.service';
@@ -181,9 +182,10 @@ async function writeStrandRows(writer: Writer, row: ConvertedRow<'strand-rows'>,
 /**
  * New records are written many at a time: a file of tens of thousands of girders would take
  * minutes row by row. Each batch goes through the services' own `create…s`, on the same rules
- * as one record through the API.
+ * as one record through the API. A batch is a whole stored page: the services overlap their
+ * checking with the database's writing within a batch, but not across batches.
  */
-const ROWS_PER_BATCH = 2000;
+const ROWS_PER_BATCH = ROWS_PER_PAGE;
 
 /** A template's rows, split into those new to the register (written in batches here) and those to write one by one (changes). */
 type NewRowsWriter = (writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void) => Promise<AnyConvertedRow[]>;
