@@ -175,6 +175,23 @@ describe('imports API: checking an upload', () => {
     expect(lines[1]).toMatch(/^structures,2,adt,lots,/);
   });
 
+  it('names, in the check, a girder the engine could not rate: a strand row above its section, at that strand row', async () => {
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(readFileSync(path.join(__dirname, '../../data-import/samples/west-district-inventory.xlsx')));
+    const strandRows = workbook.getWorksheet('strand-rows')!;
+    const yColumn = (strandRows.getRow(1).values as unknown[]).indexOf('y_mm');
+    // Higher than any girder of the sample is deep: the engine refuses strands outside the concrete.
+    strandRows.getRow(2).getCell(yColumn).value = 9000;
+    const bytes = Buffer.from(await workbook.xlsx.writeBuffer());
+
+    const checked = json<ImportDetail>(await upload('managerNetwork', bytes, 'west with a strand row too high.xlsx'));
+    expect(checked.problems).toEqual([{ sheet: 'strand-rows', row: 2, column: 'y_mm', value: 9000, message: '9000 mm is not inside the girder section' }]);
+    expect(checked.allowed.commit).toBe(false);
+    expect(checked.counts.girders).toMatchObject({ create: expect.any(Number) });
+    // Nothing of the file is written by a check.
+    expect(await testDb.db('structures').where({ district: 'West District' }).count<{ count: string }[]>('* as count')).toEqual([{ count: '0' }]);
+  });
+
   it('lets an inspector import findings but not the inventory', async () => {
     const checked = json<ImportDetail>(await upload('inspectorSouth', csvOf(structureRow({ structure_number: 'BV-S-0921', district: 'South District' })), 'structures.csv'));
     expect(checked.problems).toEqual([expect.objectContaining({ row: 2, column: 'structure_number', message: expect.stringMatching(/may not import structures/) })]);

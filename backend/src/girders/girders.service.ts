@@ -5,11 +5,11 @@ import { withTransaction, type Database, type Transaction } from '../db/database
 import { onlyCreatedId, type ManyCreated } from '../db/many-created';
 import { WritesInFlight } from '../db/writes-in-flight';
 import { markSpansReratingDue } from '../ratings/ratings.repository';
-import { AppError } from '../http/app-error';
+import { AppError, type InvalidField } from '../http/app-error';
 import { findSpanById, findSpansWithPlace, type SpanRow } from '../spans/spans.repository';
 import { findStructureById } from '../structures/structures.repository';
 import { assertMayEditIn } from '../structures/structures.service';
-import { girderCalcFileParts, type StoredGirder } from './girder-calc-file';
+import { girderCalcFileParts, type StoredGirder, type StoredSpan } from './girder-calc-file';
 import { girderColumnsOf, recordPathOf, toGirderRecord } from './girder-record';
 import {
   findDistrictsUsingGirderType,
@@ -147,7 +147,7 @@ function checkedTypeSection(type: GirderTypeRow | undefined, record: GirderRecor
 }
 
 /** A rating calculation file of the girder as stored in its span, with the given damage; traffic, condition and vehicle only complete it. */
-function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number, damage: readonly DamageEntry[] = []) {
+function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> | null, span: StoredSpan, girderNumber: number, skewDeg: number, damage: readonly DamageEntry[] = []) {
   const { columns, strandRows } = girderColumnsOf(record);
   const stored: StoredGirder = { girder: { ...columns, girder_number: girderNumber }, typeSection, strandRows };
   return {
@@ -165,13 +165,37 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
  * record and its span and lets the engine's own schema judge it, naming each problem by its
  * place in the record. A girder that passes can always be rated.
  */
-function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: SpanRow, girderNumber: number, skewDeg: number, passed?: Set<string>): void {
+function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: StoredSpan, girderNumber: number, skewDeg: number, passed?: Set<string>): void {
   const rateFile = rateFileOf(record, typeSection, span, girderNumber, skewDeg);
   const key = passed && isPlainJson(rateFile) ? JSON.stringify(rateFile) : null;
   if (key !== null && passed!.has(key)) return;
   const parsed = parseRateFile(rateFile);
   if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
   if (key !== null) passed!.add(key);
+}
+
+/**
+ * What would stop the API writing this girder on this span, each problem at its place in the
+ * record: a catalogue type whose section lacks a dimension the record overrides, or what the
+ * engine finds wrong with the rating calculation file. Empty when the girder can be rated. An
+ * import's check asks this of every girder it would write, with the span as the file leaves it.
+ */
+export function girderRatingProblems(
+  record: GirderRecord,
+  type: GirderTypeRow | undefined,
+  span: StoredSpan,
+  girderNumber: number,
+  skewDeg: number,
+  passedRateFiles: Set<string>,
+): readonly InvalidField[] {
+  try {
+    const typeSection = record.girderTypeId === null ? null : checkedTypeSection(type, record);
+    assertRateable(record, typeSection, span, girderNumber, skewDeg, passedRateFiles);
+    return [];
+  } catch (error) {
+    if (!(error instanceof AppError)) throw error;
+    return (error.details as { fields: InvalidField[] }).fields;
+  }
 }
 
 /**

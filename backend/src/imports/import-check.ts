@@ -2,6 +2,7 @@ import { isDeepStrictEqual } from 'node:util';
 import {
   COLUMNS_SHEET_NAME,
   IMPORT_TEMPLATE_NAMES,
+  IMPORT_TEMPLATES,
   canInDistrict,
   checkUpload,
   convertRow,
@@ -11,23 +12,28 @@ import {
   type Action,
   type AnyConvertedRow,
   type ConvertedRow,
+  type GirderRecord,
   type HeaderReading,
   type ImportCounts,
   type ImportProblem,
   type ImportTemplateName,
   type SignedInUser,
+  type StrandRow,
 } from '../../../shared/src';
 import type { Database, Transaction } from '../db/database';
 import { toGirderRecord } from '../girders/girder-record';
-import { findGirdersOfSpans, findGirderTypes, findStrandRowsOfGirders, type GirderRow } from '../girders/girders.repository';
+import type { StoredSpan } from '../girders/girder-calc-file';
+import { findGirdersOfSpans, findGirderTypes, findStrandRowsOfGirders, type GirderRow, type GirderTypeRow } from '../girders/girders.repository';
+import { girderRatingProblems } from '../girders/girders.service';
 import { findFindingsOfInspection, findInspectionsOfStructures, type FindingRow, type InspectionRow } from '../inspections/inspections.repository';
 import { findingsMisfitOnGirder, importedFindingOutcomeInDraft, placeOfImportedFindings } from '../inspections/inspections.service';
 import { findPriorRatingsOfStructures, type PriorRatingRow } from '../prior-ratings/prior-ratings.repository';
 import { priorRatingMisfit } from '../prior-ratings/prior-ratings.service';
 import { findSpansOfStructures, type SpanRow } from '../spans/spans.repository';
-import { editableFields as spanFields } from '../spans/spans.service';
+import { spanColumnsOf, editableFields as spanFields } from '../spans/spans.service';
 import { findStructuresByNumbers, type StructureRow } from '../structures/structures.repository';
 import { editableFields as structureFields } from '../structures/structures.service';
+import { newSpanFields } from './import-commit';
 import { findingColumnOf } from './import-write-findings';
 import { priorRatingColumnOf } from './import-write-prior-ratings';
 import { readRows } from './readers/read-rows';
@@ -101,6 +107,7 @@ interface Register {
   readonly girders: ReadonlyMap<string, GirderRow>;
   readonly strandRows: ReadonlyMap<number, Parameters<typeof toGirderRecord>[1]>;
   readonly girderTypeIds: ReadonlyMap<string, number>;
+  readonly girderTypes: ReadonlyMap<number, GirderTypeRow>;
   /** The inspections of the structures the file has findings for, by structure number, oldest first. */
   readonly inspections: ReadonlyMap<string, readonly InspectionRow[]>;
   /** The findings of the user's own drafts among them, by inspection id: an imported finding may change one. */
@@ -131,14 +138,16 @@ async function readRegister(db: Db, user: SignedInUser, rows: readonly AnyConver
   const girderRows = await findGirdersOfSpans(db, spanRows.map((row) => row.id));
   const girders = new Map(girderRows.map((row) => [girderKey({ structureNumber: row.structure_number, spanIndex: row.span_index, girderNumber: row.girder_number }), row]));
   const strandRows = await findStrandRowsOfGirders(db, girderRows.map((row) => row.id));
-  const girderTypeIds = new Map((await findGirderTypes(db)).map((type) => [type.name.toLowerCase(), type.id]));
+  const girderTypeRows = await findGirderTypes(db);
+  const girderTypeIds = new Map(girderTypeRows.map((type) => [type.name.toLowerCase(), type.id]));
+  const girderTypes = new Map(girderTypeRows.map((type) => [type.id, type]));
   const inspectionRows = await findInspectionsOfStructures(db, storedIdsNamedBy(rows, 'findings', structures));
   const draftFindings = new Map<number, FindingRow[]>();
   for (const draft of inspectionRows.filter((inspection) => inspection.inspector_id === user.id && (inspection.state === 'draft' || inspection.state === 'returned'))) {
     draftFindings.set(draft.id, await findFindingsOfInspection(db, draft.id));
   }
   const priorRatings = byStructureNumber(await findPriorRatingsOfStructures(db, storedIdsNamedBy(rows, 'prior-ratings', structures)), structures);
-  return { structures, spans, girders, strandRows, girderTypeIds, inspections: byStructureNumber(inspectionRows, structures), draftFindings, priorRatings };
+  return { structures, spans, girders, strandRows, girderTypeIds, girderTypes, inspections: byStructureNumber(inspectionRows, structures), draftFindings, priorRatings };
 }
 
 type Outcome = 'create' | 'update' | 'unchanged';
@@ -180,23 +189,87 @@ function judgeSpan(row: ConvertedRow<'spans'>, register: Register, inFile: Reado
   return ok('create');
 }
 
-function judgeGirder(row: ConvertedRow<'girders'>, register: Register, spansInFile: ReadonlySet<string>): Judged {
+function judgeGirder(row: ConvertedRow<'girders'>, register: Register, inFile: FileFacts): Judged {
   const { girderTypeName } = row.body;
   const girderTypeId = girderTypeName === null ? null : register.girderTypeIds.get(girderTypeName.toLowerCase());
   if (girderTypeId === undefined) return refused(problemAt(row, 'girder_type', girderTypeName, 'is not a girder type of the catalogue; add it there first, or give the section'));
   const stored = register.girders.get(girderKey(row.body));
-  if (stored) {
-    const { strandRows: _strandRows, ...storedRecord } = toGirderRecord(stored, register.strandRows.get(stored.id) ?? []);
-    return ok(sameAs(storedRecord, { ...row.body.record, girderTypeId }) ? 'unchanged' : 'update');
-  }
-  if (!register.spans.has(spanKey(row.body)) && !spansInFile.has(spanKey(row.body))) {
+  if (!stored && !register.spans.has(spanKey(row.body)) && !inFile.spans.has(spanKey(row.body))) {
     return refused(problemAt(row, row.keyColumns, `${row.body.structureNumber} span ${row.body.spanIndex}`, 'this span is not in the register, and no valid spans row of this file adds it'));
   }
-  return ok('create');
+  const fileStrandRows = inFile.strandRowRows.get(girderKey(row.body));
+  const record: GirderRecord = { ...row.body.record, girderTypeId, strandRows: fileStrandRows ? fileStrandRows.map((each) => each.body.strandRow) : storedStrandRows(register, stored) };
+  const unrateable = ratingProblems(row, record, register, inFile);
+  if (unrateable.length > 0) return refused(...unrateable);
+  if (!stored) return ok('create');
+  const { strandRows: _strandRows, ...storedRecord } = toGirderRecord(stored, register.strandRows.get(stored.id) ?? []);
+  return ok(sameAs(storedRecord, { ...row.body.record, girderTypeId }) ? 'unchanged' : 'update');
 }
 
-function judgeStrandRows(row: ConvertedRow<'strand-rows'>, register: Register, girdersInFile: ReadonlySet<string>): Judged {
-  if (register.girders.has(girderKey(row.body)) || girdersInFile.has(girderKey(row.body))) return ok('create');
+const storedStrandRows = (register: Register, stored: GirderRow | undefined): StrandRow[] => (stored ? toGirderRecord(stored, register.strandRows.get(stored.id) ?? []).strandRows : []);
+
+/**
+ * What the engine would refuse in the girder as the commit writes it — its record, its strand
+ * rows from the file (or those stored), on its span and structure as the file leaves them — by
+ * the same rules as the API, each problem at the file's cell where one stands for it: the
+ * preview names what would otherwise fail the commit. A file's girders are often alike, so a
+ * calculation file already passed is known by its text (`inFile.passedRateFiles`).
+ */
+function ratingProblems(row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows'>, record: GirderRecord, register: Register, inFile: FileFacts): ImportProblem[] {
+  const span = spanAsFileLeavesIt(register, inFile, row.body);
+  if (!span) return [];
+  const type = record.girderTypeId === null ? undefined : register.girderTypes.get(record.girderTypeId);
+  const fields = girderRatingProblems(record, type, span, row.body.girderNumber, skewAsFileLeavesIt(register, inFile, row.body.structureNumber), inFile.passedRateFiles);
+  return fields.map((field) => girderProblemAt(row, field, inFile.strandRowRows.get(girderKey(row.body))));
+}
+
+/** The span a girder is rated on once the commit has written the file's spans row, if it has one; the girder count a new span starts with is its girders in the file. */
+function spanAsFileLeavesIt(register: Register, inFile: FileFacts, key: { structureNumber: string; spanIndex: number }): StoredSpan | null {
+  const stored = register.spans.get(spanKey(key));
+  const fileRow = inFile.spanRows.get(spanKey(key));
+  if (stored) return fileRow ? { ...stored, ...spanColumnsOf(fileRow.body.span) } : stored;
+  if (!fileRow) return null;
+  return { ...(spanColumnsOf(newSpanFields(fileRow)) as Omit<StoredSpan, 'girder_count'>), girder_count: inFile.girdersPerSpan.get(spanKey(key)) ?? 0 };
+}
+
+function skewAsFileLeavesIt(register: Register, inFile: FileFacts, structureNumber: string): number {
+  return inFile.structureRows.get(structureNumber)?.body.skewDeg ?? register.structures.get(structureNumber)?.skew_deg ?? 0;
+}
+
+/**
+ * A problem the girder's record has, at the file's cell: a strand row's field at its row of the
+ * strand-rows sheet, any other field at its column of the girders row; else at the row's key.
+ */
+function girderProblemAt(row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows'>, field: { field: string; message: string }, fileStrandRows: readonly ConvertedRow<'strand-rows'>[] | undefined): ImportProblem {
+  const [head, index, ...rest] = field.field.split('.');
+  const strandRowRow = head === 'strandRows' ? fileStrandRows?.[Number(index)] : undefined;
+  if (strandRowRow) {
+    const column = columnAtPath('strand-rows', ['strandRow', ...rest]);
+    return column ? problemAt(strandRowRow, column.header, valueAt(strandRowRow.body, column.path), field.message) : problemAt(strandRowRow, strandRowRow.keyColumns, null, `${rest.join('.') || 'strand row'}: ${field.message}`);
+  }
+  if (row.template === 'girders') {
+    const column = field.field === 'girderTypeId' ? columnAtPath('girders', ['girderTypeName']) : columnAtPath('girders', ['record', ...field.field.split('.')]);
+    if (column) return problemAt(row, column.header, valueAt(row.body, column.path), field.message);
+  }
+  return problemAt(row, row.keyColumns, null, `${field.field}: ${field.message}`);
+}
+
+/** The template's column whose body path is `path`, or the nearest one above it. */
+function columnAtPath(template: ImportTemplateName, path: readonly string[]) {
+  const startsWith = (whole: readonly string[], start: readonly string[]) => start.every((key, at) => whole[at] === key);
+  return IMPORT_TEMPLATES[template].columns.filter((column) => startsWith(path, column.path)).sort((a, b) => b.path.length - a.path.length)[0];
+}
+
+function judgeStrandRows(row: ConvertedRow<'strand-rows'>, register: Register, inFile: FileFacts): Judged {
+  if (inFile.girders.has(girderKey(row.body))) return ok('create');
+  const stored = register.girders.get(girderKey(row.body));
+  if (stored) {
+    // Strand rows of a girder the file does not otherwise give replace the stored ones: judged with the stored girder, once, at its first strand row.
+    const fileStrandRows = inFile.strandRowRows.get(girderKey(row.body))!;
+    if (fileStrandRows[0] !== row) return ok('create');
+    const unrateable = ratingProblems(row, { ...toGirderRecord(stored, []), strandRows: fileStrandRows.map((each) => each.body.strandRow) }, register, inFile);
+    return unrateable.length > 0 ? refused(...unrateable) : ok('create');
+  }
   const { structureNumber, spanIndex, girderNumber } = row.body;
   return refused(problemAt(row, row.keyColumns, `${structureNumber} span ${spanIndex} girder ${girderNumber}`, 'this girder is not in the register, and no valid girders row of this file adds it'));
 }
@@ -208,6 +281,15 @@ interface FileFacts {
   readonly girders: ReadonlySet<string>;
   /** The strand rows the file gives, by girder: they replace the stored ones. */
   readonly strandRowIds: ReadonlyMap<string, readonly string[]>;
+  /** The same strand rows as the file's rows, by girder, in file order. */
+  readonly strandRowRows: ReadonlyMap<string, readonly ConvertedRow<'strand-rows'>[]>;
+  /** The rows of the structures and spans the file gives: girders are rated on them as the file leaves them. */
+  readonly structureRows: ReadonlyMap<string, ConvertedRow<'structures'>>;
+  readonly spanRows: ReadonlyMap<string, ConvertedRow<'spans'>>;
+  /** How many girders the file gives each span: what a new span starts with. */
+  readonly girdersPerSpan: ReadonlyMap<string, number>;
+  /** Calculation files the engine has passed in this check, by their text. */
+  readonly passedRateFiles: Set<string>;
 }
 
 /** A cell of the row's body at a column's place, as the problem list shows it. */
@@ -296,6 +378,25 @@ function judgePriorRating(row: ConvertedRow<'prior-ratings'>, register: Register
   return ok(same ? 'unchanged' : 'update');
 }
 
+/** The file's rows by what they key: strand rows by girder, structures and spans rows by number, and girders counted by span. */
+function rowsByKey(rows: readonly AnyConvertedRow[]): Pick<FileFacts, 'strandRowIds' | 'strandRowRows' | 'structureRows' | 'spanRows' | 'girdersPerSpan'> {
+  const strandRowRows = new Map<string, ConvertedRow<'strand-rows'>[]>();
+  const structureRows = new Map<string, ConvertedRow<'structures'>>();
+  const spanRows = new Map<string, ConvertedRow<'spans'>>();
+  const girdersPerSpan = new Map<string, number>();
+  for (const row of rows) {
+    if (row.template === 'strand-rows') {
+      const ofGirder = strandRowRows.get(girderKey(row.body));
+      if (ofGirder) ofGirder.push(row);
+      else strandRowRows.set(girderKey(row.body), [row]);
+    } else if (row.template === 'structures') structureRows.set(row.body.structureNumber, row);
+    else if (row.template === 'spans') spanRows.set(spanKey(row.body), row);
+    else if (row.template === 'girders') girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
+  }
+  const strandRowIds = new Map([...strandRowRows].map(([key, ofGirder]) => [key, ofGirder.map((each) => each.body.strandRow.id)]));
+  return { strandRowIds, strandRowRows, structureRows, spanRows, girdersPerSpan };
+}
+
 /**
  * Judges every converted row against the register: what it would create, change or leave as it
  * is, and what refuses it — a structure, span or girder it names that exists nowhere, a girder
@@ -307,9 +408,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
   const structuresInFile = new Map(rows.flatMap((row) => (row.template === 'structures' ? [[row.body.structureNumber, row.body.district] as const] : [])));
   const spansInFile = new Set(rows.flatMap((row) => (row.template === 'spans' ? [spanKey(row.body)] : [])));
   const girdersInFile = new Set(rows.flatMap((row) => (row.template === 'girders' ? [girderKey(row.body)] : [])));
-  const strandRowIds = new Map<string, string[]>();
-  for (const row of rows) if (row.template === 'strand-rows') strandRowIds.set(girderKey(row.body), [...(strandRowIds.get(girderKey(row.body)) ?? []), row.body.strandRow.id]);
-  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, strandRowIds };
+  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, ...rowsByKey(rows), passedRateFiles: new Set() };
   const misfits = await misfitsOnStoredGirders(db, rows, register, inFile);
   const counts: Partial<Record<ImportTemplateName, { rows: number; create: number; update: number; unchanged: number }>> = {};
   const problems: ImportProblem[] = [];
@@ -352,9 +451,9 @@ function judgeRow(row: AnyConvertedRow, register: Register, user: SignedInUser, 
     case 'spans':
       return judgeSpan(row, register, inFile.structures);
     case 'girders':
-      return judgeGirder(row, register, inFile.spans);
+      return judgeGirder(row, register, inFile);
     case 'strand-rows':
-      return judgeStrandRows(row, register, inFile.girders);
+      return judgeStrandRows(row, register, inFile);
     case 'findings':
       return judgeFinding(row, register, user, inFile, misfits);
     case 'prior-ratings':

@@ -134,7 +134,8 @@ async function writeSpan(writer: Writer, row: ConvertedRow<'spans'>): Promise<vo
   writer.written.spans.set(spanKey(row.body), created.id);
 }
 
-function newSpanFields(row: ConvertedRow<'spans'>): NewSpanFields {
+/** A new span's fields: the row's, and the defaults of those it leaves out. */
+export function newSpanFields(row: ConvertedRow<'spans'>): NewSpanFields {
   return { ...NEW_SPAN_DEFAULTS, ...row.body.span } as NewSpanFields;
 }
 

@@ -153,5 +153,12 @@ export async function createSpans({ db, user }: { db: Database | Transaction; us
 }
 
 function columnsOf(fields: NewSpanFields): Required<SpanColumns> {
-  return Object.fromEntries(Object.entries(COLUMN_OF).map(([field, column]) => [column, fields[field as keyof NewSpanFields]])) as unknown as Required<SpanColumns>;
+  return spanColumnsOf(fields) as Required<SpanColumns>;
+}
+
+/** The columns of the span fields given; fields left out are left out. */
+export function spanColumnsOf(fields: Partial<SpanChangeFields>): SpanColumns {
+  const columns: Record<string, unknown> = {};
+  for (const [field, column] of Object.entries(COLUMN_OF)) if (field in fields) columns[column] = fields[field as keyof SpanChangeFields];
+  return columns as SpanColumns;
 }
