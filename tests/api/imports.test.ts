@@ -177,7 +177,7 @@ describe('imports API: checking an upload', () => {
 
   it('names, in the check, a girder the engine could not rate: a strand row above its section, at that strand row', async () => {
     const workbook = new ExcelJS.Workbook();
-    await workbook.xlsx.load(readFileSync(path.join(__dirname, '../../data-import/samples/west-district-inventory.xlsx')));
+    await workbook.xlsx.load(readFileSync(path.join(__dirname, '../../data-import/samples/west-district-inventory.xlsx')) as unknown as ArrayBuffer);
     const strandRows = workbook.getWorksheet('strand-rows')!;
     const yColumn = (strandRows.getRow(1).values as unknown[]).indexOf('y_mm');
     // Higher than any girder of the sample is deep: the engine refuses strands outside the concrete.
