@@ -46,6 +46,25 @@ export interface StoredSpan {
   diaphragms: Readonly<Span['diaphragms']>;
 }
 
+/** Every field of `StoredSpan`: what `girderCalcFileParts` may read of a span row. */
+export const STORED_SPAN_FIELDS = [
+  'length_m',
+  'girder_count',
+  'girder_spacing_mm',
+  'overhang_mm',
+  'roadway_width_mm',
+  'barrier_face_to_girder_mm',
+  'deck_thickness_mm',
+  'haunch_mm',
+  'wearing_surface',
+  'barriers',
+  'diaphragms',
+] as const satisfies readonly (keyof StoredSpan)[];
+
+/** Fails to compile when `StoredSpan` gains a field the list above leaves out. */
+const everyStoredSpanFieldListed: Record<Exclude<keyof StoredSpan, (typeof STORED_SPAN_FIELDS)[number]>, never> = {};
+void everyStoredSpanFieldListed;
+
 /**
  * The calculation file's `girder`, `span`, `profiles`, `debonding` and `losses` parts of one
  * stored girder (docs/calc-file.md): the stored columns map one-to-one onto the file's keys, so

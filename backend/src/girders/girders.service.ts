@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { LIBRARY_VEHICLE_IDS, parseRateFile, type CalcFileIssue, type DamageEntry, type GirderTypeChange, type NewGirderType, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
+import { ENGINE_VERSION, LIBRARY_VEHICLE_IDS, parseRateFile, type CalcFileIssue, type DamageEntry, type GirderTypeChange, type NewGirderType, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent, recordAuditEvents } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
 import { withTransaction, type Database, type Transaction } from '../db/database';
@@ -10,7 +10,7 @@ import { AppError, type InvalidField } from '../http/app-error';
 import { findSpanById, findSpansWithPlace, type SpanRow } from '../spans/spans.repository';
 import { findStructureById } from '../structures/structures.repository';
 import { assertMayEditIn } from '../structures/structures.service';
-import { girderCalcFileParts, type StoredGirder, type StoredSpan } from './girder-calc-file';
+import { girderCalcFileParts, STORED_SPAN_FIELDS, type StoredGirder, type StoredSpan } from './girder-calc-file';
 import { girderColumnsOf, recordPathOf, toGirderRecord } from './girder-record';
 import {
   findDistrictsUsingGirderType,
@@ -164,15 +164,57 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
 /**
  * Checks the girder the way a rating will read it: assembles the rating calculation file from the
  * record and its span and lets the engine's own schema judge it, naming each problem by its
- * place in the record. A girder that passes can always be rated.
+ * place in the record. A girder that passes can always be rated. `passed` holds what has passed
+ * already (`rateInputsDigest`): such a girder is not checked again.
  */
 function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: StoredSpan, girderNumber: number, skewDeg: number, passed?: Set<string>): void {
-  const rateFile = rateFileOf(record, typeSection, span, girderNumber, skewDeg);
-  const key = passed && isPlainJson(rateFile) ? textDigest(JSON.stringify(rateFile)) : null;
+  const key = passed ? rateInputsDigest(record, typeSection, span, girderNumber, skewDeg) : null;
   if (key !== null && passed!.has(key)) return;
-  const parsed = parseRateFile(rateFile);
+  const parsed = parseRateFile(rateFileOf(record, typeSection, span, girderNumber, skewDeg));
   if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
   if (key !== null) passed!.add(key);
+}
+
+/**
+ * Everything `rateFileOf` makes a girder's calculation file of — record, catalogue section, the
+ * span's fields the engine reads, girder number, skew — with the engine's version, as one
+ * SHA-256 digest: the engine's check is a pure function of the file, and the girders of a span,
+ * and the spans of a structure, are often alike, so an import checks each distinct girder once.
+ * The section and the span are shared by many girders, so their text is worked out once per
+ * object. Null when JSON text would not say all of an input (see `isPlainJson`): then the girder
+ * is simply checked.
+ */
+function rateInputsDigest(record: GirderRecord, typeSection: Record<string, unknown> | null, span: StoredSpan, girderNumber: number, skewDeg: number): string | null {
+  const sectionText = sharedJsonText(typeSection);
+  const spanText = storedSpanText(span);
+  if (sectionText === null || spanText === null || !isPlainJson(record) || !isPlainJson(girderNumber) || !isPlainJson(skewDeg)) return null;
+  return createHash('sha256').update(`${ENGINE_VERSION}|${girderNumber}|${skewDeg}|${sectionText}|${spanText}|${JSON.stringify(record)}`).digest('base64');
+}
+
+const jsonTextOf = new WeakMap<object, string | null>();
+
+/** The JSON text of an object many girders share, worked out once; null when JSON would not say all of it. Shared objects are read, never changed. */
+function sharedJsonText(value: object | null): string | null {
+  if (value === null) return 'null';
+  let text = jsonTextOf.get(value);
+  if (text === undefined) {
+    text = isPlainJson(value) ? JSON.stringify(value) : null;
+    jsonTextOf.set(value, text);
+  }
+  return text;
+}
+
+const storedSpanTextOf = new WeakMap<StoredSpan, string | null>();
+
+/** The text of the span's fields the engine reads (`STORED_SPAN_FIELDS`, in that order): a span row holds more (its id, its stamps), which would make every span differ. */
+function storedSpanText(span: StoredSpan): string | null {
+  let text = storedSpanTextOf.get(span);
+  if (text === undefined) {
+    const fields = STORED_SPAN_FIELDS.map((field) => span[field] ?? null);
+    text = isPlainJson(fields) ? JSON.stringify(fields) : null;
+    storedSpanTextOf.set(span, text);
+  }
+  return text;
 }
 
 /**
@@ -187,11 +229,11 @@ export function girderRatingProblems(
   span: StoredSpan,
   girderNumber: number,
   skewDeg: number,
-  passedRateFiles: Set<string>,
+  rateableGirders: Set<string>,
 ): readonly InvalidField[] {
   try {
     const typeSection = record.girderTypeId === null ? null : checkedTypeSection(type, record);
-    assertRateable(record, typeSection, span, girderNumber, skewDeg, passedRateFiles);
+    assertRateable(record, typeSection, span, girderNumber, skewDeg, rateableGirders);
     return [];
   } catch (error) {
     if (!(error instanceof AppError)) throw error;
@@ -199,14 +241,10 @@ export function girderRatingProblems(
   }
 }
 
-/** A file passed is remembered by the SHA-256 of its text: an import checks thousands of distinct files of a few kilobytes each. */
-const textDigest = (text: string) => createHash('sha256').update(text).digest('base64');
-
 /**
- * Whether JSON text says all there is of a value — only objects, arrays, text, booleans, null
- * and finite numbers other than -0, nothing undefined — so that `assertRateable` may know a file
- * it has already passed by its text: the engine's check is a pure function of the file, and the
- * girders of a span, and the spans of a structure, are often alike. Any other file is checked.
+ * Whether JSON text says all there is of a value — only plain objects, arrays, text, booleans,
+ * null and finite numbers other than -0, nothing undefined — so that two values of one text are
+ * the same value.
  */
 function isPlainJson(value: unknown): boolean {
   switch (typeof value) {
@@ -297,22 +335,26 @@ export interface NewGirder {
  * Adds many girders on the rules of `createGirder` — districts, catalogue type, the engine's
  * check — reading their spans and the catalogue once and writing in a few statements, which is
  * what lets an import of tens of thousands finish in seconds. Each refused girder is named by its
- * index; the others are written.
+ * index; the others are written. `rateableGirders` holds the digests of girders the engine has
+ * passed already (`girderRatingProblems`, an import's check); it gains those passed here.
  */
-export async function createGirders({ db, user }: { db: Database | Transaction; user: SignedInUser }, girders: readonly NewGirder[]): Promise<ManyCreated> {
+export async function createGirders(
+  { db, user }: { db: Database | Transaction; user: SignedInUser },
+  girders: readonly NewGirder[],
+  { rateableGirders = new Set<string>() }: { rateableGirders?: Set<string> } = {},
+): Promise<ManyCreated> {
   return withTransaction(db, async (trx) => {
     const spans = new Map((await findSpansWithPlace(trx, [...new Set(girders.map((girder) => girder.spanId))])).map((span) => [span.id, span]));
     const types = new Map((await findGirderTypes(trx)).map((type) => [type.id, type]));
     const refused = new Map<number, AppError>();
     const idsInOrder: (number | null)[] = girders.map(() => null);
-    const passedRateFiles = new Set<string>();
     const writes = new WritesInFlight();
     try {
       for (let start = 0; start < girders.length; start += GIRDERS_PER_STEP) {
         const accepted: AcceptedGirder[] = [];
         for (let index = start; index < Math.min(start + GIRDERS_PER_STEP, girders.length); index += 1) {
           try {
-            accepted.push({ index, girder: girders[index]!, insert: checkedNewGirder(user, spans.get(girders[index]!.spanId), types, girders[index]!, passedRateFiles) });
+            accepted.push({ index, girder: girders[index]!, insert: checkedNewGirder(user, spans.get(girders[index]!.spanId), types, girders[index]!, rateableGirders) });
           } catch (error) {
             if (!(error instanceof AppError)) throw error;
             refused.set(index, error);
@@ -358,12 +400,12 @@ function checkedNewGirder(
   span: (SpanRow & { district: string; skew_deg: number }) | undefined,
   types: ReadonlyMap<number, GirderTypeRow>,
   { spanId, girderNumber, record }: NewGirder,
-  passedRateFiles: Set<string>,
+  rateableGirders: Set<string>,
 ): GirderInsert {
   if (!span) throw AppError.notFound(`There is no span with id ${spanId}`);
   assertMayEditIn(user, span.district);
   const typeSection = record.girderTypeId === null ? null : checkedTypeSection(types.get(record.girderTypeId), record);
-  assertRateable(record, typeSection, span, girderNumber, span.skew_deg, passedRateFiles);
+  assertRateable(record, typeSection, span, girderNumber, span.skew_deg, rateableGirders);
   const written = girderColumnsOf(record);
   return { spanId, girderNumber, columns: written.columns, strandRows: written.strandRows };
 }

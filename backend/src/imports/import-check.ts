@@ -45,6 +45,8 @@ export interface UploadJudgement {
   readonly counts: Partial<Record<ImportTemplateName, ImportCounts>>;
   readonly problems: ImportProblem[];
   readonly rows: readonly AnyConvertedRow[];
+  /** Digests of what the engine passed (`girderRatingProblems`): the commit need not check the same girders again. */
+  readonly rateableGirders: ReadonlySet<string>;
 }
 
 /** Who may import each template (product.md, permission matrix): inventory by its editors, findings by inspectors and raters, prior ratings by those who run ratings — they are ratings of record. */
@@ -213,18 +215,30 @@ const storedStrandRows = (register: Register, stored: GirderRow | undefined): St
  * rows from the file (or those stored), on its span and structure as the file leaves them — by
  * the same rules as the API, each problem at the file's cell where one stands for it: the
  * preview names what would otherwise fail the commit. A file's girders are often alike, so a
- * calculation file already passed is known by its text (`inFile.passedRateFiles`).
+ * girder already passed is known by its digest (`inFile.rateableGirders`).
  */
 function ratingProblems(row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows'>, record: GirderRecord, register: Register, inFile: FileFacts): ImportProblem[] {
   const span = spanAsFileLeavesIt(register, inFile, row.body);
   if (!span) return [];
   const type = record.girderTypeId === null ? undefined : register.girderTypes.get(record.girderTypeId);
-  const fields = girderRatingProblems(record, type, span, row.body.girderNumber, skewAsFileLeavesIt(register, inFile, row.body.structureNumber), inFile.passedRateFiles);
+  const fields = girderRatingProblems(record, type, span, row.body.girderNumber, skewAsFileLeavesIt(register, inFile, row.body.structureNumber), inFile.rateableGirders);
   return fields.map((field) => girderProblemAt(row, field, inFile.strandRowRows.get(girderKey(row.body))));
 }
 
-/** The span a girder is rated on once the commit has written the file's spans row, if it has one; the girder count a new span starts with is its girders in the file. */
+/**
+ * The span a girder is rated on once the commit has written the file's spans row, if it has one;
+ * the girder count a new span starts with is its girders in the file. Worked out once a span: its
+ * girders share it.
+ */
 function spanAsFileLeavesIt(register: Register, inFile: FileFacts, key: { structureNumber: string; spanIndex: number }): StoredSpan | null {
+  const known = inFile.spansAsLeft.get(spanKey(key));
+  if (known !== undefined) return known;
+  const span = spanAfterFile(register, inFile, key);
+  inFile.spansAsLeft.set(spanKey(key), span);
+  return span;
+}
+
+function spanAfterFile(register: Register, inFile: FileFacts, key: { structureNumber: string; spanIndex: number }): StoredSpan | null {
   const stored = register.spans.get(spanKey(key));
   const fileRow = inFile.spanRows.get(spanKey(key));
   if (stored) return fileRow ? { ...stored, ...spanColumnsOf(fileRow.body.span) } : stored;
@@ -288,8 +302,10 @@ interface FileFacts {
   readonly spanRows: ReadonlyMap<string, ConvertedRow<'spans'>>;
   /** How many girders the file gives each span: what a new span starts with. */
   readonly girdersPerSpan: ReadonlyMap<string, number>;
-  /** Calculation files the engine has passed in this check, by their text. */
-  readonly passedRateFiles: Set<string>;
+  /** Girders the engine has passed in this check, by digest. */
+  readonly rateableGirders: Set<string>;
+  /** Spans as the file leaves them, by span key, as `spanAsFileLeavesIt` works them out. */
+  readonly spansAsLeft: Map<string, StoredSpan | null>;
 }
 
 /** A cell of the row's body at a column's place, as the problem list shows it. */
@@ -408,7 +424,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
   const structuresInFile = new Map(rows.flatMap((row) => (row.template === 'structures' ? [[row.body.structureNumber, row.body.district] as const] : [])));
   const spansInFile = new Set(rows.flatMap((row) => (row.template === 'spans' ? [spanKey(row.body)] : [])));
   const girdersInFile = new Set(rows.flatMap((row) => (row.template === 'girders' ? [girderKey(row.body)] : [])));
-  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, ...rowsByKey(rows), passedRateFiles: new Set() };
+  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, ...rowsByKey(rows), rateableGirders: new Set(), spansAsLeft: new Map() };
   const misfits = await misfitsOnStoredGirders(db, rows, register, inFile);
   const counts: Partial<Record<ImportTemplateName, { rows: number; create: number; update: number; unchanged: number }>> = {};
   const problems: ImportProblem[] = [];
@@ -433,7 +449,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
   }
   const strandCounts = counts['strand-rows'];
   for (const [key, strandRows] of strandRowsOfGirder) strandCounts![strandRowsOutcome(register, key, strandRows)] += 1;
-  return { counts, problems, rows };
+  return { counts, problems, rows, rateableGirders: inFile.rateableGirders };
 }
 
 /** A girder's strand rows in the file against its stored ones: they replace them as a whole. */

@@ -77,6 +77,8 @@ interface Writer {
   readonly girderTypeIds: ReadonlyMap<string, number>;
   /** Spans that girders were added to: their girder count is set once all are written. */
   readonly spansGainingGirders: Set<number>;
+  /** Girders the engine has passed, by digest: in the import's check, then in this commit. */
+  readonly rateableGirders: Set<string>;
 }
 
 async function structureId(writer: Writer, structureNumber: string): Promise<number> {
@@ -255,7 +257,7 @@ async function writeNewGirders(writer: Writer, rows: readonly AnyConvertedRow[],
       refuse(row, error);
     }
   }
-  const created = await createGirders({ db: writer.trx, user: writer.user }, fresh.map((each) => each.girder));
+  const created = await createGirders({ db: writer.trx, user: writer.user }, fresh.map((each) => each.girder), { rateableGirders: writer.rateableGirders });
   fresh.forEach(({ row, girder }, index) => {
     const id = created.ids[index];
     if (!id) return refuse(row, created.refused.get(index)!);
@@ -287,7 +289,7 @@ const NEW_ROWS_WRITERS: Partial<Record<ImportTemplateName, NewRowsWriter>> = {
  * batches, changes one by one. A row a service refuses becomes a problem at that row; the
  * caller rolls everything back when there is any.
  */
-export async function writeRows(trx: Transaction, user: SignedInUser, checked: CheckedRows, onProgress: CommitProgress): Promise<ImportProblem[]> {
+export async function writeRows(trx: Transaction, user: SignedInUser, checked: CheckedRows, onProgress: CommitProgress, rateableGirders: ReadonlySet<string> = new Set()): Promise<ImportProblem[]> {
   const writer: Writer = {
     trx,
     user,
@@ -295,6 +297,7 @@ export async function writeRows(trx: Transaction, user: SignedInUser, checked: C
     facts: await fileFacts(checked),
     girderTypeIds: new Map((await findGirderTypes(trx)).map((type) => [type.name.toLowerCase(), type.id])),
     spansGainingGirders: new Set(),
+    rateableGirders: new Set(rateableGirders),
   };
   const problems: ImportProblem[] = [];
   const refuse = (row: AnyConvertedRow, error: AppError) => problems.push(...problemsOf(row, error));

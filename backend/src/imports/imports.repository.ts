@@ -74,11 +74,19 @@ export interface CheckedImportColumns {
   content_sha256: string;
   counts: Partial<Record<ImportTemplateName, ImportCounts>>;
   problems: readonly ImportProblem[];
+  rateable_girders: ReadonlySet<string>;
 }
 
 export async function insertCheckedImport(db: Db, columns: CheckedImportColumns, userId: number): Promise<number> {
   const [row] = await db('imports')
-    .insert({ ...columns, counts: JSON.stringify(columns.counts), problems: JSON.stringify(columns.problems), problem_count: columns.problems.length, uploaded_by: userId })
+    .insert({
+      ...columns,
+      counts: JSON.stringify(columns.counts),
+      problems: JSON.stringify(columns.problems),
+      problem_count: columns.problems.length,
+      rateable_girders: JSON.stringify([...columns.rateable_girders]),
+      uploaded_by: userId,
+    })
     .returning('id');
   return (row as { id: number }).id;
 }
@@ -119,8 +127,16 @@ export async function findImportRowPage(db: Db, importId: number, { template, pa
   return (row?.rows as AnyConvertedRow[] | undefined) ?? [];
 }
 
-export async function deleteImportRowPages(db: Db, importId: number): Promise<void> {
+/** Digests of the girders the engine passed in the import's check. */
+export async function findRateableGirders(db: Db, importId: number): Promise<Set<string>> {
+  const row = await db('imports').where({ id: importId }).first('rateable_girders');
+  return new Set((row?.rateable_girders as string[] | null | undefined) ?? []);
+}
+
+/** What the check kept for the commit — the rows, the girders passed — once the import is committed or set aside. */
+export async function forgetCheckedRows(db: Db, importId: number): Promise<void> {
   await db('import_row_pages').where({ import_id: importId }).delete();
+  await db('imports').where({ id: importId }).update({ rateable_girders: null });
 }
 
 /** The import row locked for a step, with who uploaded it. */

@@ -14,10 +14,11 @@ import {
   findImportById,
   findImportForStep,
   findImportProblems,
-  deleteImportRowPages,
-  findImportRowPage,
+    findImportRowPage,
   findImportRowPageKeys,
   findImports,
+  forgetCheckedRows,
+  findRateableGirders,
   insertCheckedImport,
   insertImportRowPages,
   updateImportProgress,
@@ -119,7 +120,7 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   const judged = await judgeAgainstRegister(db, user, read.rows);
   const problems = [...read.problems, ...judged.problems];
   const id = await withTransaction(db, async (trx) => {
-    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems }, user.id);
+    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems, rateable_girders: problems.length === 0 ? judged.rateableGirders : new Set() }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
     if (problems.length === 0) await insertImportRowPages(trx, inserted, read.rows);
     await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts: judged.counts, problemCount: problems.length } });
@@ -198,11 +199,11 @@ async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: numb
   await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
   const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
   if (earlier) throw importedBefore(earlier);
-  const problems = await writeRows(trx, user, await checkedRowsOf(trx, row.id), onProgress);
+  const problems = await writeRows(trx, user, await checkedRowsOf(trx, row.id), onProgress, await findRateableGirders(trx, row.id));
   await options.afterRowsWritten?.();
   if (problems.length > 0) throw new CommitRefused(problems);
   // Written into the register, the rows as checked are of no further use.
-  await deleteImportRowPages(trx, row.id);
+  await forgetCheckedRows(trx, row.id);
   await updateImportState(trx, row.id, { state: 'committed', committed: true, progress: null }, user.id);
   await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id: row.id }, after: { contentSha256: row.content_sha256 } });
 }
@@ -278,7 +279,7 @@ export async function discardImport({ db, user }: Writer, id: number, version: n
   await withTransaction(db, async (trx) => {
     await importForStep(trx, user, id, version);
     await updateImportState(trx, id, { state: 'discarded' }, user.id);
-    await deleteImportRowPages(trx, id);
+    await forgetCheckedRows(trx, id);
     await recordAuditEvent({ db: trx, user, action: 'import.discarded', entity: { type: 'import', id } });
   });
   return toDetail(db, (await findImportById(db, id))!, user);
