@@ -116,8 +116,10 @@ async function writeStructure(writer: Writer, row: ConvertedRow<'structures'>): 
 }
 
 /** What a new span has when its row leaves it out: the optional columns of the spans template, and diaphragms, which it does not carry. */
-const NEW_SPAN_DEFAULTS: Pick<NewSpanFields, 'barrierFaceToGirderMm' | 'wearingSurface' | 'barriers' | 'diaphragms'> = {
+const NEW_SPAN_DEFAULTS: Pick<NewSpanFields, 'barrierFaceToGirderMm' | 'haunchMm' | 'wearingSurface' | 'barriers' | 'diaphragms'> = {
   barrierFaceToGirderMm: null,
+  // The database's own default for a span without a haunch, given here so the check rates new spans' girders on what the commit writes.
+  haunchMm: 0,
   wearingSurface: null,
   barriers: [],
   diaphragms: [],
