@@ -94,7 +94,12 @@ export interface AssembledBody {
   girderTypeName?: unknown;
 }
 
-/** How a template's assembled row is checked: stand-ins put in, the schema, stand-ins taken out. */
+/**
+ * How a template's assembled row is checked: stand-ins put in, the schema, stand-ins taken out.
+ * The row's body is the row's own, so stand-ins go into it in place rather than into a copy; they
+ * come out of the schema's output as a copy without them, because `delete` would turn every
+ * checked body of a large file into a slow dictionary-mode object.
+ */
 interface BodyCheck {
   readonly schema: z.ZodType;
   readonly putStandIns?: (body: AssembledBody) => void;
@@ -108,10 +113,11 @@ export const BODY_CHECKS: Readonly<Record<ImportTemplateName, BodyCheck>> = {
   spans: {
     schema: z.strictObject({ structureNumber, spanIndex: ordinal, span: spanChange }),
     putStandIns: (body) => {
-      body.span = { ...body.span, version: STAND_IN_VERSION };
+      (body.span ??= {})['version'] = STAND_IN_VERSION;
     },
     takeStandInsOut: (body) => {
-      delete body.span!['version'];
+      const { version: _version, ...span } = body.span!;
+      body.span = span;
     },
   },
   girders: {
@@ -121,21 +127,24 @@ export const BODY_CHECKS: Readonly<Record<ImportTemplateName, BodyCheck>> = {
       record: girderRecord,
     }),
     putStandIns: (body) => {
-      body.record = { ...body.record, girderTypeId: body.girderTypeName == null ? null : STAND_IN_ID, strandRows: [] };
+      const record = (body.record ??= {});
+      record['girderTypeId'] = body.girderTypeName == null ? null : STAND_IN_ID;
+      record['strandRows'] = [];
     },
     takeStandInsOut: (body) => {
-      delete body.record!['girderTypeId'];
-      delete body.record!['strandRows'];
+      const { girderTypeId: _girderTypeId, strandRows: _strandRows, ...record } = body.record!;
+      body.record = record;
     },
   },
   'strand-rows': { schema: z.strictObject({ ...girderKey, strandRow: strandRowSchema }) },
   findings: {
     schema: z.strictObject({ ...girderKey, inspectedOn: isoDate, finding: newFinding }),
     putStandIns: (body) => {
-      body.finding = { ...body.finding, girderId: STAND_IN_ID };
+      (body.finding ??= {})['girderId'] = STAND_IN_ID;
     },
     takeStandInsOut: (body) => {
-      delete body.finding!['girderId'];
+      const { girderId: _girderId, ...finding } = body.finding!;
+      body.finding = finding;
     },
   },
   'prior-ratings': { schema: priorRatingImport },

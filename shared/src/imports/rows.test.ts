@@ -48,6 +48,7 @@ describe('a good row of each template', () => {
     if (!named.ok) throw new Error(JSON.stringify(named.problems));
     expect(named.row.body.girderTypeName).toBe('AASHTO Type III I-girder');
     expect(named.row.body.record).not.toHaveProperty('girderTypeId');
+    expect(named.row.body.record).not.toHaveProperty('strandRows');
     expect(named.row.body.record.customSection).toBeNull();
 
     // Dimensions invented for the test, chosen to satisfy the shape's rules (web left between flanges and tapers).
@@ -158,6 +159,12 @@ describe('bad cells are named by sheet, row, column and value', () => {
     expect(problems).toEqual([
       { sheet: 'findings', row: 2, column: 'span_index', value: 1.5, message: 'expected a whole number' },
       { sheet: 'findings', row: 2, column: 'strand_indices', value: '0;x', message: 'item 2 ("x"): expected a whole number; separate items with ";"' },
+    ]);
+  });
+
+  it('empty list items are passed over, and not counted when a bad item is named', () => {
+    expect(problemsOf('findings', exampleCells('findings', { strand_indices: '0;;x;' }))).toEqual([
+      { sheet: 'findings', row: 2, column: 'strand_indices', value: '0;;x;', message: 'item 2 ("x"): expected a whole number; separate items with ";"' },
     ]);
   });
 

@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import { BODY_CHECKS, type AssembledBody, type ImportBodies } from './bodies';
-import { cellText, isEmptyCell, readCell, type RawCell } from './cells';
+import * as cells from './cells';
+import { cellText, type RawCell } from './cells';
 import { IMPORT_TEMPLATES, type ImportColumn, type ImportTemplate, type ImportTemplateName } from './columns';
 
 /**
@@ -8,6 +9,14 @@ import { IMPORT_TEMPLATES, type ImportColumn, type ImportTemplate, type ImportTe
  * type, convert US customary values to SI, assemble the body and let the API's schema judge it.
  * Every problem names the sheet, the row, the column as the file spells it and the cell's value.
  */
+
+/*
+ * Local copies of what every cell is read with: compiled to CommonJS (tsx, jest), every use of an
+ * imported binding is a getter call, which for the cells of a large file adds up.
+ */
+const CellRefusal = cells.CellRefusal;
+const isEmptyCell = cells.isEmptyCell;
+const readCell = cells.readCell;
 
 /** One bad cell, row or header, as the preview and the error report list it. */
 export interface ImportProblem {
@@ -33,6 +42,12 @@ interface HeaderUse {
   readonly inUsUnits: boolean;
 }
 
+/** A column the sheet gives, with what reading its cell in every row takes. */
+interface GivenColumn extends HeaderUse {
+  /** The header as the file spells it: the key of the column's cells. */
+  readonly fileHeader: string;
+}
+
 /** What a sheet's header row says: which column each header is, and what is wrong with the headers. */
 export interface HeaderReading {
   readonly template: ImportTemplate;
@@ -42,6 +57,12 @@ export interface HeaderReading {
   /** The file's header for each column given, by the column's SI header. */
   readonly fileHeaders: ReadonlyMap<string, string>;
   readonly problems: readonly ImportProblem[];
+  /** The columns given, in the template's order: what `convertRow` reads in every row of the sheet. */
+  readonly givenColumns: readonly GivenColumn[];
+  /** A required column is missing: no row of the sheet converts. */
+  readonly missingRequired: boolean;
+  /** The file's headers of the key columns, for naming them in a problem. */
+  readonly keyColumns: string;
 }
 
 const normalised = (header: string) => header.trim().toLowerCase();
@@ -90,7 +111,13 @@ export function readHeaders(templateName: ImportTemplateName, sheet: string, hea
     const names = missing.map((column) => (column.us === null ? column.header : `${column.header} (or ${column.us.header})`));
     problems.push({ sheet, row: headerRowNumber, column: missing.map((column) => column.header).join(', '), value: null, message: `required columns missing: ${names.join(', ')}` });
   }
-  return { template, sheet, uses, fileHeaders, problems };
+  const givenColumns: GivenColumn[] = [];
+  for (const column of template.columns) {
+    const fileHeader = fileHeaders.get(column.header);
+    if (fileHeader !== undefined) givenColumns.push({ column, fileHeader, inUsUnits: uses.get(fileHeader)!.inUsUnits });
+  }
+  const keyColumns = template.keyHeaders.map((header) => fileHeaders.get(header) ?? header).join(', ');
+  return { template, sheet, uses, fileHeaders, problems, givenColumns, missingRequired: missing.length > 0, keyColumns };
 }
 
 export type RowConversion<T extends ImportTemplateName> =
@@ -107,42 +134,49 @@ export interface ConvertedRow<T extends ImportTemplateName> {
   readonly keyColumns: string;
 }
 
+/** Puts a value at its place in the body, making the objects on the way. */
 function setAt(target: Record<string, unknown>, path: readonly string[], value: unknown): void {
   let node = target;
-  for (const key of path.slice(0, -1)) node = (node[key] ??= {}) as Record<string, unknown>;
-  node[path.at(-1)!] = value;
+  const last = path.length - 1;
+  for (let depth = 0; depth < last; depth += 1) node = (node[path[depth]!] ??= {}) as Record<string, unknown>;
+  node[path[last]!] = value;
 }
 
 const reportValue = (raw: RawCell): ImportProblem['value'] => (raw instanceof Date ? cellText(raw) : (raw ?? null));
+
+function cellProblem(parsed: ParsedRow, column: string, raw: RawCell, message: string): ImportProblem {
+  return { sheet: parsed.sheet, row: parsed.rowNumber, column, value: reportValue(raw), message };
+}
 
 /**
  * Converts one parsed row into its template's body, checked with the API's schema. Cells under
  * unknown or doubled headers are left out (their header is already a problem). A sheet missing
  * a required column converts no row: `readHeaders` reported it once, and every row is refused
  * with no problems of its own rather than one on every row.
+ *
+ * Run for every row of a large file: what the headers decide is worked out once in `readHeaders`,
+ * and nothing here makes a function or a list a good row does not need.
  */
 export function convertRow<T extends ImportTemplateName>(templateName: T, headers: HeaderReading, parsed: ParsedRow): RowConversion<T> {
-  const { template } = headers;
-  if (template.columns.some((column) => column.required && !headers.fileHeaders.has(column.header))) return { ok: false, problems: [] };
-  const problems: ImportProblem[] = [];
-  const problem = (column: string, raw: RawCell, message: string) =>
-    problems.push({ sheet: parsed.sheet, row: parsed.rowNumber, column, value: reportValue(raw), message });
+  if (headers.missingRequired) return { ok: false, problems: [] };
+  let problems: ImportProblem[] | undefined;
   const body: Record<string, unknown> = {};
 
-  for (const column of template.columns) {
-    const fileHeader = headers.fileHeaders.get(column.header);
-    if (fileHeader === undefined) continue;
+  for (const { column, fileHeader, inUsUnits } of headers.givenColumns) {
     const raw = parsed.cells[fileHeader];
     if (isEmptyCell(raw)) {
-      if (column.required) problem(fileHeader, raw, 'is required');
+      if (column.required) (problems ??= []).push(cellProblem(parsed, fileHeader, raw, 'is required'));
       continue;
     }
-    const reading = readCell(column, raw, headers.uses.get(fileHeader)!.inUsUnits);
-    if (reading.ok) setAt(body, column.path, reading.value);
-    else problem(fileHeader, raw, reading.message);
+    const reading = readCell(column, raw, inUsUnits);
+    if (reading instanceof CellRefusal) (problems ??= []).push(cellProblem(parsed, fileHeader, raw, reading.message));
+    else setAt(body, column.path, reading);
   }
-  if (templateName === 'girders') problems.push(...sectionWithoutShape(headers, parsed, body));
-  if (problems.length > 0) return { ok: false, problems };
+  if (templateName === 'girders') {
+    const shapeMissing = sectionWithoutShape(headers, parsed, body);
+    if (shapeMissing !== null) (problems ??= []).push(shapeMissing);
+  }
+  if (problems !== undefined) return { ok: false, problems };
 
   const check = BODY_CHECKS[templateName];
   check.putStandIns?.(body);
@@ -150,16 +184,15 @@ export function convertRow<T extends ImportTemplateName>(templateName: T, header
   if (!result.success) return { ok: false, problems: schemaProblems(headers, parsed, result.error) };
   const checked = result.data as AssembledBody;
   check.takeStandInsOut?.(checked);
-  const keyColumns = template.keyHeaders.map((header) => headers.fileHeaders.get(header) ?? header).join(', ');
-  return { ok: true, row: { template: templateName, sheet: parsed.sheet, rowNumber: parsed.rowNumber, body: checked as ImportBodies[T], keyColumns } };
+  return { ok: true, row: { template: templateName, sheet: parsed.sheet, rowNumber: parsed.rowNumber, body: checked as ImportBodies[T], keyColumns: headers.keyColumns } };
 }
 
 /** Custom-section dimensions with no shape would be dropped silently by the schema's shape choice; say so instead. */
-function sectionWithoutShape(headers: HeaderReading, parsed: ParsedRow, body: AssembledBody): ImportProblem[] {
+function sectionWithoutShape(headers: HeaderReading, parsed: ParsedRow, body: AssembledBody): ImportProblem | null {
   const section = body.record?.['customSection'] as Record<string, unknown> | undefined;
-  if (section === undefined || section['shape'] !== undefined) return [];
+  if (section === undefined || section['shape'] !== undefined) return null;
   const shapeHeader = headers.fileHeaders.get('section_shape') ?? 'section_shape';
-  return [{ sheet: parsed.sheet, row: parsed.rowNumber, column: shapeHeader, value: null, message: 'section dimensions are given: choose the section shape they belong to (rectangle, tee or i-girder)' }];
+  return { sheet: parsed.sheet, row: parsed.rowNumber, column: shapeHeader, value: null, message: 'section dimensions are given: choose the section shape they belong to (rectangle, tee or i-girder)' };
 }
 
 type SchemaIssue = z.core.$ZodIssue;

@@ -1,5 +1,4 @@
 import type { StrandRow } from '../engine/calc-file/girder';
-import type { ImportBodies } from './bodies';
 import type { ImportTemplateName } from './columns';
 import type { ConvertedRow, ImportProblem } from './rows';
 
@@ -42,7 +41,7 @@ export const structureKey = (structureNumber: string): string => JSON.stringify(
 export const spanKey = (span: SpanReference): string => JSON.stringify([span.structureNumber, span.spanIndex]);
 export const girderKey = (girder: GirderReference): string => JSON.stringify([girder.structureNumber, girder.spanIndex, girder.girderNumber]);
 
-/** What identifies a row within its template, as a comparable string and as people read it. */
+/** What identifies a row within its template, as people read it. */
 function keyParts(row: AnyConvertedRow): (string | number | null)[] {
   switch (row.template) {
     case 'structures':
@@ -62,91 +61,130 @@ function keyParts(row: AnyConvertedRow): (string | number | null)[] {
   }
 }
 
-function duplicateKeys(rows: readonly AnyConvertedRow[]): ImportProblem[] {
-  const firstSeen = new Map<string, AnyConvertedRow>();
-  const problems: ImportProblem[] = [];
-  for (const row of rows) {
-    const parts = keyParts(row);
-    const key = JSON.stringify([row.template, ...parts]);
-    const first = firstSeen.get(key);
-    if (first === undefined) {
-      firstSeen.set(key, row);
-      continue;
-    }
-    const where = first.sheet === row.sheet ? `row ${first.rowNumber}` : `row ${first.rowNumber} of sheet ${first.sheet}`;
-    problems.push({
-      sheet: row.sheet,
-      row: row.rowNumber,
-      column: row.keyColumns,
-      value: parts.map((part) => (part === null ? '' : String(part))).join(' / '),
-      message: `the same ${row.keyColumns} as ${where}; each may appear once in a file`,
-    });
-  }
-  return problems;
-}
-
-/** The structure, span or girder a row refers to (a structure's own row refers to nothing). */
-function parentOf(row: AnyConvertedRow): { kind: 'structure'; structureNumber: string } | { kind: 'span'; span: SpanReference } | { kind: 'girder'; girder: GirderReference } | null {
+/** A row's key as comparable text; a structure, span or girder row's is the one other rows refer to it by. */
+function rowKey(row: AnyConvertedRow): string {
   switch (row.template) {
     case 'structures':
-      return null;
+      return structureKey(row.body.structureNumber);
     case 'spans':
-      return { kind: 'structure', structureNumber: row.body.structureNumber };
+      return spanKey(row.body);
     case 'girders':
-      return { kind: 'span', span: row.body };
-    case 'strand-rows':
-    case 'findings':
-      return { kind: 'girder', girder: row.body };
-    case 'prior-ratings': {
-      const { structureNumber, spanIndex } = row.body;
-      return spanIndex === null ? { kind: 'structure', structureNumber } : { kind: 'span', span: { structureNumber, spanIndex } };
-    }
+      return girderKey(row.body);
+    default:
+      return JSON.stringify(keyParts(row));
   }
 }
 
-/** Checks the converted rows of one upload (every sheet) against each other. */
+function duplicateProblem(row: AnyConvertedRow, first: AnyConvertedRow): ImportProblem {
+  const parts = keyParts(row);
+  const where = first.sheet === row.sheet ? `row ${first.rowNumber}` : `row ${first.rowNumber} of sheet ${first.sheet}`;
+  return {
+    sheet: row.sheet,
+    row: row.rowNumber,
+    column: row.keyColumns,
+    value: parts.map((part) => (part === null ? '' : String(part))).join(' / '),
+    message: `the same ${row.keyColumns} as ${where}; each may appear once in a file`,
+  };
+}
+
+/** Parts of the upload that rows refer to, kept when the upload does not hold them, by key in file order. */
+interface Missing {
+  readonly structures: Map<string, string>;
+  readonly spans: Map<string, SpanReference>;
+  readonly girders: Map<string, GirderReference>;
+}
+
+function referToStructure(missing: Missing, inUpload: ReadonlySet<string>, structureNumber: string): void {
+  const key = structureKey(structureNumber);
+  if (!inUpload.has(key) && !missing.structures.has(key)) missing.structures.set(key, structureNumber);
+}
+
+function referToSpan(missing: Missing, inUpload: ReadonlySet<string>, structureNumber: string, spanIndex: number): void {
+  const key = spanKey({ structureNumber, spanIndex });
+  if (!inUpload.has(key) && !missing.spans.has(key)) missing.spans.set(key, { structureNumber, spanIndex });
+}
+
+function referToGirder(missing: Missing, inUpload: ReadonlySet<string>, key: string, girder: GirderReference): void {
+  if (inUpload.has(key) || missing.girders.has(key)) return;
+  const { structureNumber, spanIndex, girderNumber } = girder;
+  missing.girders.set(key, { structureNumber, spanIndex, girderNumber });
+}
+
+/** A girder's strand rows as the file gives them, gathered row by row. */
+interface StrandRowGroup {
+  readonly girder: GirderReference;
+  readonly strandRows: StrandRow[];
+  readonly rows: { readonly sheet: string; readonly rowNumber: number }[];
+}
+
+function addStrandRow(groups: Map<string, StrandRowGroup>, key: string, row: ConvertedRow<'strand-rows'>): void {
+  const { structureNumber, spanIndex, girderNumber, strandRow } = row.body;
+  let group = groups.get(key);
+  if (group === undefined) {
+    group = { girder: { structureNumber, spanIndex, girderNumber }, strandRows: [], rows: [] };
+    groups.set(key, group);
+  }
+  group.strandRows.push(strandRow);
+  group.rows.push({ sheet: row.sheet, rowNumber: row.rowNumber });
+}
+
+/**
+ * Checks the converted rows of one upload (every sheet) against each other. Two passes over the
+ * rows, each key worked out once a row: the first finds the keys given twice and what the upload
+ * holds, the second what rows refer to (a row may refer to one further down the file).
+ */
 export function checkUpload(rows: readonly AnyConvertedRow[]): UploadCheck {
+  const problems: ImportProblem[] = [];
+  // The same key in two templates is no duplicate: one map of keys seen per template.
+  const firstSeen = new Map<ImportTemplateName, Map<string, AnyConvertedRow>>();
   const structuresInUpload = new Set<string>();
   const spansInUpload = new Set<string>();
   const girdersInUpload = new Set<string>();
   for (const row of rows) {
-    if (row.template === 'structures') structuresInUpload.add(structureKey(row.body.structureNumber));
-    if (row.template === 'spans') spansInUpload.add(spanKey(row.body));
-    if (row.template === 'girders') girdersInUpload.add(girderKey(row.body));
+    const key = rowKey(row);
+    let seen = firstSeen.get(row.template);
+    if (seen === undefined) firstSeen.set(row.template, (seen = new Map()));
+    const first = seen.get(key);
+    if (first === undefined) seen.set(key, row);
+    else problems.push(duplicateProblem(row, first));
+    if (row.template === 'structures') structuresInUpload.add(key);
+    else if (row.template === 'spans') spansInUpload.add(key);
+    else if (row.template === 'girders') girdersInUpload.add(key);
   }
 
-  const structures = new Map<string, string>();
-  const spans = new Map<string, SpanReference>();
-  const girders = new Map<string, GirderReference>();
+  const missing: Missing = { structures: new Map(), spans: new Map(), girders: new Map() };
+  const strandRowGroups = new Map<string, StrandRowGroup>();
   for (const row of rows) {
-    const parent = parentOf(row);
-    if (parent?.kind === 'structure' && !structuresInUpload.has(structureKey(parent.structureNumber))) {
-      structures.set(structureKey(parent.structureNumber), parent.structureNumber);
-    } else if (parent?.kind === 'span' && !spansInUpload.has(spanKey(parent.span))) {
-      spans.set(spanKey(parent.span), { structureNumber: parent.span.structureNumber, spanIndex: parent.span.spanIndex });
-    } else if (parent?.kind === 'girder' && !girdersInUpload.has(girderKey(parent.girder))) {
-      const { structureNumber, spanIndex, girderNumber } = parent.girder;
-      girders.set(girderKey(parent.girder), { structureNumber, spanIndex, girderNumber });
+    switch (row.template) {
+      case 'structures':
+        break;
+      case 'spans':
+        referToStructure(missing, structuresInUpload, row.body.structureNumber);
+        break;
+      case 'girders':
+        referToSpan(missing, spansInUpload, row.body.structureNumber, row.body.spanIndex);
+        break;
+      case 'strand-rows': {
+        const key = girderKey(row.body);
+        referToGirder(missing, girdersInUpload, key, row.body);
+        addStrandRow(strandRowGroups, key, row);
+        break;
+      }
+      case 'findings':
+        referToGirder(missing, girdersInUpload, girderKey(row.body), row.body);
+        break;
+      case 'prior-ratings': {
+        const { structureNumber, spanIndex } = row.body;
+        if (spanIndex === null) referToStructure(missing, structuresInUpload, structureNumber);
+        else referToSpan(missing, spansInUpload, structureNumber, spanIndex);
+        break;
+      }
     }
   }
 
   return {
-    problems: duplicateKeys(rows),
-    mustExist: { structures: [...structures.values()], spans: [...spans.values()], girders: [...girders.values()] },
-    strandRowsByGirder: strandRowsByGirder(rows),
+    problems,
+    mustExist: { structures: [...missing.structures.values()], spans: [...missing.spans.values()], girders: [...missing.girders.values()] },
+    strandRowsByGirder: strandRowGroups,
   };
-}
-
-function strandRowsByGirder(rows: readonly AnyConvertedRow[]): Map<string, GirderStrandRows> {
-  const groups = new Map<string, { girder: GirderReference; strandRows: StrandRow[]; rows: { sheet: string; rowNumber: number }[] }>();
-  for (const row of rows) {
-    if (row.template !== 'strand-rows') continue;
-    const { structureNumber, spanIndex, girderNumber, strandRow } = row.body as ImportBodies['strand-rows'];
-    const key = girderKey({ structureNumber, spanIndex, girderNumber });
-    const group = groups.get(key) ?? { girder: { structureNumber, spanIndex, girderNumber }, strandRows: [], rows: [] };
-    group.strandRows.push(strandRow);
-    group.rows.push({ sheet: row.sheet, rowNumber: row.rowNumber });
-    groups.set(key, group);
-  }
-  return groups;
 }

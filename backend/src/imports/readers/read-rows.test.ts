@@ -65,6 +65,20 @@ describe('readRows on CSV', () => {
     ]);
   });
 
+  it('keeps a header named __proto__ or constructor an ordinary column, on every row', async () => {
+    const file = temp.file('odd-headers.csv');
+    fs.writeFileSync(file, '__proto__,constructor,girder_key\r\nx,y,G-1\r\n,,G-2\r\n');
+    const rows = await readAllRows(file);
+    expect(rows.map((row) => Object.keys(row.cells))).toEqual([
+      ['__proto__', 'constructor', 'girder_key'],
+      ['__proto__', 'constructor', 'girder_key'],
+    ]);
+    expect(rows[0]!.cells).toMatchObject({ constructor: 'y', girder_key: 'G-1' });
+    expect(Object.getOwnPropertyDescriptor(rows[0]!.cells, '__proto__')?.value).toBe('x');
+    expect(Object.getOwnPropertyDescriptor(rows[1]!.cells, '__proto__')?.value).toBeNull();
+    expect([Object.prototype, null]).toContain(Object.getPrototypeOf(rows[0]!.cells));
+  });
+
   it('reads a CSV named .xlsx as CSV, under a given sheet name', async () => {
     const file = temp.file('really-text.xlsx');
     fs.writeFileSync(file, 'girder_key,strand_count\nG-1,12\n');

@@ -17,8 +17,13 @@ export interface RawRow {
   readonly cells: ReadonlyArray<{ readonly column: number; readonly value: CellValue }>;
 }
 
-/** Header texts by column number. */
-type Header = ReadonlyMap<number, string>;
+/** A sheet's header row, read once and used for every data row of the sheet. */
+interface Header {
+  /** Header texts by column number; a column without a name is a hole. */
+  readonly names: readonly (string | undefined)[];
+  /** Every header with no value, in column order: each data row starts as a copy of it. */
+  readonly emptyRow: Readonly<Record<string, CellValue>>;
+}
 
 /**
  * Turns raw rows (sheet after sheet) into named rows: in each sheet the first non-empty row is the
@@ -33,14 +38,15 @@ export async function* nameCells(rawRows: AsyncIterable<RawRow>): AsyncGenerator
       currentSheet = raw.sheet;
       header = undefined;
     }
-    const cells = raw.cells.filter((cell) => !isBlank(cell.value));
-    if (cells.length === 0) continue;
-    if (!header) {
+    if (header === undefined) {
+      const cells = filledCells(raw.cells);
+      if (cells.length === 0) continue;
       header = readHeader(raw.sheet, raw.rowNumber, cells);
       sawHeader = true;
       continue;
     }
-    yield { sheet: raw.sheet, rowNumber: raw.rowNumber, cells: namedCells(raw, cells, header) };
+    const cells = namedCells(raw, header);
+    if (cells !== undefined) yield { sheet: raw.sheet, rowNumber: raw.rowNumber, cells };
   }
   if (!sawHeader) {
     throw new ImportFileError({ code: 'bad_header', message: 'The file holds no header row: the first row must name the columns' });
@@ -52,8 +58,15 @@ export function isBlank(value: CellValue): boolean {
   return value === null || (typeof value === 'string' && value.trim() === '');
 }
 
+function filledCells(cells: RawRow['cells']): RawRow['cells'] {
+  const filled: RawRow['cells'][number][] = [];
+  for (const cell of cells) if (!isBlank(cell.value)) filled.push(cell);
+  return filled;
+}
+
 function readHeader(sheet: string, rowNumber: number, cells: RawRow['cells']): Header {
-  const header = new Map<number, string>();
+  const names: (string | undefined)[] = [];
+  const emptyRow: Record<string, CellValue> = {};
   const columnOfName = new Map<string, number>();
   for (const { column, value } of cells) {
     if (typeof value !== 'string') {
@@ -78,15 +91,20 @@ function readHeader(sheet: string, rowNumber: number, cells: RawRow['cells']): H
       });
     }
     columnOfName.set(name.toLowerCase(), column);
-    header.set(column, name);
+    names[column] = name;
+    // Defined, not assigned, so a header such as "__proto__" is an own key; a copy keeps it one, and
+    // assigning to an own key sets that key, never the prototype.
+    Object.defineProperty(emptyRow, name, { value: null, writable: true, enumerable: true, configurable: true });
   }
-  return header;
+  return { names, emptyRow };
 }
 
-function namedCells(raw: RawRow, cells: RawRow['cells'], header: Header): Record<string, CellValue> {
-  const named = new Map<string, CellValue>([...header.values()].map((name) => [name, null]));
-  for (const { column, value } of cells) {
-    const name = header.get(column);
+/** The row's cells by header, or undefined when every cell is blank. */
+function namedCells(raw: RawRow, header: Header): Record<string, CellValue> | undefined {
+  let named: Record<string, CellValue> | undefined;
+  for (const { column, value } of raw.cells) {
+    if (isBlank(value)) continue;
+    const name = header.names[column];
     if (name === undefined) {
       throw new ImportFileError({
         code: 'value_without_header',
@@ -96,10 +114,11 @@ function namedCells(raw: RawRow, cells: RawRow['cells'], header: Header): Record
         column: columnLetter(column),
       });
     }
-    named.set(name, value);
+    // A copy of one object for every row of the sheet: one shape, built without a map of entries.
+    named ??= { ...header.emptyRow };
+    named[name] = value;
   }
-  // fromEntries defines own properties, so a header such as "__proto__" stays an ordinary key.
-  return Object.fromEntries(named);
+  return named;
 }
 
 function describe(value: CellValue): string {
