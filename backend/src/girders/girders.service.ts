@@ -206,12 +206,17 @@ function sharedJsonText(value: object | null): string | null {
 
 const storedSpanTextOf = new WeakMap<StoredSpan, string | null>();
 
-/** The text of the span's fields the engine reads (`STORED_SPAN_FIELDS`, in that order): a span row holds more (its id, its stamps), which would make every span differ. */
+/**
+ * The text of the span's fields the engine reads (`STORED_SPAN_FIELDS`, in that order): a span
+ * row holds more (its id, its stamps), which would make every span differ. Objects inside are
+ * written with their keys sorted: read back from `jsonb`, a wearing surface has its keys in
+ * another order than the file's row gave them, and is the same wearing surface.
+ */
 function storedSpanText(span: StoredSpan): string | null {
   let text = storedSpanTextOf.get(span);
   if (text === undefined) {
     const fields = STORED_SPAN_FIELDS.map((field) => span[field] ?? null);
-    text = isPlainJson(fields) ? JSON.stringify(fields) : null;
+    text = isPlainJson(fields) ? JSON.stringify(fields, sortedKeys) : null;
     storedSpanTextOf.set(span, text);
   }
   return text;
@@ -239,6 +244,12 @@ export function girderRatingProblems(
     if (!(error instanceof AppError)) throw error;
     return (error.details as { fields: InvalidField[] }).fields;
   }
+}
+
+/** A `JSON.stringify` replacer writing every object's keys in sorted order. */
+function sortedKeys(_key: string, value: unknown): unknown {
+  if (value === null || typeof value !== 'object' || Array.isArray(value)) return value;
+  return Object.fromEntries(Object.entries(value).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)));
 }
 
 /**
