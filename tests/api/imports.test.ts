@@ -192,6 +192,21 @@ describe('imports API: checking an upload', () => {
     expect(await testDb.db('structures').where({ district: 'West District' }).count<{ count: string }[]>('* as count')).toEqual([{ count: '0' }]);
   });
 
+  it('names, in the check, a new span the file gives no girders', async () => {
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(readFileSync(path.join(__dirname, '../../data-import/samples/west-district-inventory.xlsx')) as unknown as ArrayBuffer);
+    const spans = workbook.getWorksheet('spans')!;
+    const indexColumn = (spans.getRow(1).values as unknown[]).indexOf('span_index');
+    const extra = spans.addRow((spans.getRow(2).values as unknown[]).slice(1));
+    extra.getCell(indexColumn).value = 9;
+    const bytes = Buffer.from(await workbook.xlsx.writeBuffer());
+
+    const checked = json<ImportDetail>(await upload('managerNetwork', bytes, 'west with an empty span.xlsx'));
+    expect(checked.problems).toEqual([
+      expect.objectContaining({ sheet: 'spans', row: extra.number, column: 'structure_number, span_index', message: 'a new span needs its girders (at least two) in the same file; this file gives it 0' }),
+    ]);
+  });
+
   it('lets an inspector import findings but not the inventory', async () => {
     const checked = json<ImportDetail>(await upload('inspectorSouth', csvOf(structureRow({ structure_number: 'BV-S-0921', district: 'South District' })), 'structures.csv'));
     expect(checked.problems).toEqual([expect.objectContaining({ row: 2, column: 'structure_number', message: expect.stringMatching(/may not import structures/) })]);

@@ -182,14 +182,21 @@ function judgeStructure(row: ConvertedRow<'structures'>, register: Register, use
   return ok(sameAs(structureFields(stored), row.body) ? 'unchanged' : 'update');
 }
 
-function judgeSpan(row: ConvertedRow<'spans'>, register: Register, inFile: ReadonlySet<string>): Judged {
+function judgeSpan(row: ConvertedRow<'spans'>, register: Register, inFile: FileFacts): Judged {
   const stored = register.spans.get(spanKey(row.body));
   if (stored) return ok(sameAs(spanFields(stored), row.body.span) ? 'unchanged' : 'update');
-  if (!register.structures.has(row.body.structureNumber) && !inFile.has(row.body.structureNumber)) {
+  if (!register.structures.has(row.body.structureNumber) && !inFile.structures.has(row.body.structureNumber)) {
     return refused(problemAt(row, row.keyColumns, row.body.structureNumber, `structure ${row.body.structureNumber} is not in the register, and no valid structures row of this file adds it`));
+  }
+  const girders = inFile.girdersPerSpan.get(spanKey(row.body)) ?? 0;
+  if (girders < MIN_GIRDERS_OF_NEW_SPAN) {
+    return refused(problemAt(row, row.keyColumns, `${row.body.structureNumber} span ${row.body.spanIndex}`, `a new span needs its girders (at least two) in the same file; this file gives it ${girders}`));
   }
   return ok('create');
 }
+
+/** A span carries at least two girders (the database's own rule); a new one gets them from the same file. */
+const MIN_GIRDERS_OF_NEW_SPAN = 2;
 
 function judgeGirder(row: ConvertedRow<'girders'>, register: Register, inFile: FileFacts): Judged {
   const { girderTypeName } = row.body;
@@ -465,7 +472,7 @@ function judgeRow(row: AnyConvertedRow, register: Register, user: SignedInUser, 
     case 'structures':
       return judgeStructure(row, register, user);
     case 'spans':
-      return judgeSpan(row, register, inFile.structures);
+      return judgeSpan(row, register, inFile);
     case 'girders':
       return judgeGirder(row, register, inFile);
     case 'strand-rows':
