@@ -118,11 +118,18 @@ interface Register {
   readonly priorRatings: ReadonlyMap<string, readonly PriorRatingRow[]>;
 }
 
+/** Adds an item to its key's list, starting the list when it is the first. */
+function addTo<K, V>(lists: Map<K, V[]>, key: K, item: V): void {
+  const list = lists.get(key);
+  if (list) list.push(item);
+  else lists.set(key, [item]);
+}
+
 /** The stored rows of the structures a template's rows name, by structure number. */
 function byStructureNumber<T extends { structure_id: number }>(stored: readonly T[], structures: ReadonlyMap<string, StructureRow>): Map<string, T[]> {
   const numberOf = new Map([...structures.values()].map((structure) => [structure.id, structure.structure_number]));
   const grouped = new Map<string, T[]>();
-  for (const row of stored) grouped.set(numberOf.get(row.structure_id)!, [...(grouped.get(numberOf.get(row.structure_id)!) ?? []), row]);
+  for (const row of stored) addTo(grouped, numberOf.get(row.structure_id)!, row);
   return grouped;
 }
 
@@ -341,7 +348,7 @@ async function misfitsOnStoredGirders(db: Db, rows: readonly AnyConvertedRow[], 
   for (const row of rows) {
     if (row.template !== 'findings' || touchedByFile(row, inFile)) continue;
     const girder = register.girders.get(girderKey(row.body));
-    if (girder) byGirder.set(girder.id, [...(byGirder.get(girder.id) ?? []), row]);
+    if (girder) addTo(byGirder, girder.id, row);
   }
   const misfits = new Map<AnyConvertedRow, ImportProblem[]>();
   for (const [girderId, findingRows] of byGirder) {
@@ -408,11 +415,8 @@ function rowsByKey(rows: readonly AnyConvertedRow[]): Pick<FileFacts, 'strandRow
   const spanRows = new Map<string, ConvertedRow<'spans'>>();
   const girdersPerSpan = new Map<string, number>();
   for (const row of rows) {
-    if (row.template === 'strand-rows') {
-      const ofGirder = strandRowRows.get(girderKey(row.body));
-      if (ofGirder) ofGirder.push(row);
-      else strandRowRows.set(girderKey(row.body), [row]);
-    } else if (row.template === 'structures') structureRows.set(row.body.structureNumber, row);
+    if (row.template === 'strand-rows') addTo(strandRowRows, girderKey(row.body), row);
+    else if (row.template === 'structures') structureRows.set(row.body.structureNumber, row);
     else if (row.template === 'spans') spanRows.set(spanKey(row.body), row);
     else if (row.template === 'girders') girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
   }
@@ -449,7 +453,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
     problems.push(...judged.problems);
     if (judged.outcome === null) continue;
     if (row.template === 'strand-rows') {
-      strandRowsOfGirder.set(girderKey(row.body), [...(strandRowsOfGirder.get(girderKey(row.body)) ?? []), row.body.strandRow]);
+      addTo(strandRowsOfGirder, girderKey(row.body), row.body.strandRow);
       continue;
     }
     count[judged.outcome] += 1;
