@@ -244,7 +244,7 @@ export async function insertGirders(trx: Transaction, girders: readonly GirderIn
       trx,
       'girders',
       chunk.map((girder) => ({ ...girder.columns, span_id: girder.spanId, girder_number: girder.girderNumber, created_by: userId, updated_by: userId })),
-      ['id', 'span_id', 'girder_number'],
+      { returning: ['id', 'span_id', 'girder_number'], parsedAs: 'jsonb' },
     );
     // Matched by (span, number), which is unique, rather than trusting the order RETURNING gives.
     const idOf = new Map(inserted.map((row) => [`${row.span_id}/${row.girder_number}`, row.id]));
