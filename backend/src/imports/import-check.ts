@@ -70,7 +70,7 @@ export function templateNamed(text: string): ImportTemplateName | null {
  * template; a CSV file holds the template given), then the rows against each other. Problems
  * are collected rather than thrown, so the person sees all of them at once.
  */
-export async function readAndConvert(filePath: string, csvTemplate: ImportTemplateName | null): Promise<{ rows: AnyConvertedRow[]; problems: ImportProblem[] }> {
+export async function readAndConvert(filePath: string, csvTemplate: ImportTemplateName | null): Promise<{ rows: AnyConvertedRow[]; problems: ImportProblem[]; sheets: string[] }> {
   const rows: AnyConvertedRow[] = [];
   const problems: ImportProblem[] = [];
   const headersBySheet = new Map<string, { template: ImportTemplateName; headers: HeaderReading } | null>();
@@ -97,7 +97,17 @@ export async function readAndConvert(filePath: string, csvTemplate: ImportTempla
   }
   const acrossRows = checkUpload(rows);
   problems.push(...acrossRows.problems);
-  return { rows, problems };
+  return { rows, problems, sheets: [...headersBySheet.keys()] };
+}
+
+/**
+ * The problems as the person fixing the file goes through it: sheet by sheet in the file's order,
+ * row by row; within a row, in the order found. Problems of the file as a whole come first.
+ */
+export function inFileOrder(problems: readonly ImportProblem[], sheets: readonly string[]): ImportProblem[] {
+  const rankOf = new Map(sheets.map((sheet, index) => [sheet, index]));
+  const rank = (sheet: string) => (sheet === '' ? -1 : (rankOf.get(sheet) ?? sheets.length));
+  return [...problems].sort((a, b) => rank(a.sheet) - rank(b.sheet) || a.row - b.row);
 }
 
 const problemAt = (row: AnyConvertedRow, column: string, value: ImportProblem['value'], message: string): ImportProblem => ({ sheet: row.sheet, row: row.rowNumber, column, value, message });

@@ -5,7 +5,7 @@ import { AppError } from '../http/app-error';
 import type { BackgroundJobs } from '../jobs/background-jobs';
 import { toSignedInUser } from '../auth/auth.service';
 import { findUserById } from '../users/users.repository';
-import { judgeAgainstRegister, readAndConvert, templateNamed } from './import-check';
+import { inFileOrder, judgeAgainstRegister, readAndConvert, templateNamed } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
 import { writeRows, type CheckedRows, type CommitProgress } from './import-commit';
 import {
@@ -96,7 +96,7 @@ async function readFile(file: ReceivedImportFile, fileKind: 'csv' | 'xlsx') {
   } catch (error) {
     if (!(error instanceof ImportFileError)) throw error;
     if (error.sheet === undefined) throw unreadableFile(error);
-    return { rows: [], problems: [problemOf(error)] };
+    return { rows: [], problems: [problemOf(error)], sheets: [] };
   }
 }
 
@@ -118,7 +118,7 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   }
   const read = await readFile(file, fileKind);
   const judged = await judgeAgainstRegister(db, user, read.rows);
-  const problems = [...read.problems, ...judged.problems];
+  const problems = inFileOrder([...read.problems, ...judged.problems], read.sheets);
   const id = await withTransaction(db, async (trx) => {
     const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems, rateable_girders: problems.length === 0 ? judged.rateableGirders : new Set() }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
