@@ -72,7 +72,7 @@ async function uploadWorkbook(page: Page, bytes: Buffer): Promise<void> {
   await page.getByTestId('import-file-input').setInputFiles({ name: FILE_NAME, mimeType: XLSX_TYPE, buffer: bytes });
   await page.getByTestId('chosen-file').filter({ hasText: FILE_NAME }).waitFor();
   // An XLSX names its templates by its sheets: no template is asked for.
-  expect(await page.locator('mat-select[data-testid="import-template"]').count()).toBe(0);
+  expect(await page.locator('[data-testid="import-template"]').count()).toBe(0);
   await page.getByTestId('upload-file').click();
 }
 
@@ -105,7 +105,7 @@ describe('imports journey', () => {
       await page.getByTestId('nav-imports').click();
       await page.waitForURL(/\/imports$/);
       await page.getByTestId('import-drop-zone').waitFor();
-      expect(await page.locator('[data-testid="import-template"][data-template="girders"]').getByTestId('template-xlsx').count()).toBe(1);
+      expect(await page.locator('[data-testid="template-download"][data-template="girders"]').getByTestId('template-xlsx').count()).toBe(1);
       await saveScreenshot(page, 'imports-1-page');
 
       // First try: the file with its mistakes. Each is listed by sheet, row, column and the value the file held.

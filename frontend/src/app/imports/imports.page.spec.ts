@@ -95,7 +95,7 @@ describe('ImportsPage', () => {
 
     expect(element('history-loading')).toBeNull();
     expect(all('import-history-row').map((row) => row.getAttribute('data-import-id'))).toEqual(['12', '9']);
-    expect(all('import-template').map((row) => row.getAttribute('data-template'))).toEqual(['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings']);
+    expect(all('template-download').map((row) => row.getAttribute('data-template'))).toEqual(['structures', 'spans', 'girders', 'strand-rows', 'findings', 'prior-ratings']);
     expect(all('template-csv').map((link) => link.getAttribute('href'))).toContain('api/import-templates/strand-rows.csv');
     expect(all('template-xlsx').map((link) => link.getAttribute('href'))).toContain('api/import-templates/girders.xlsx');
     expect(element('template-workbook')!.getAttribute('href')).toBe('api/import-templates/all.xlsx');
@@ -108,7 +108,7 @@ describe('ImportsPage', () => {
   it('marks the templates a role does not import: an inspector brings findings only, a manager no findings', async () => {
     await openPage(INSPECTOR);
     expect(textOf('page-intro')).toContain('Your role may import findings.');
-    const notYours = () => all('import-template').filter((row) => row.querySelector('[data-testid="template-not-yours"]')).map((row) => row.getAttribute('data-template'));
+    const notYours = () => all('template-download').filter((row) => row.querySelector('[data-testid="template-not-yours"]')).map((row) => row.getAttribute('data-template'));
     expect(notYours()).toEqual(['structures', 'spans', 'girders', 'strand-rows', 'prior-ratings']);
     expect(element('import-file-input')).not.toBeNull();
 
