@@ -321,6 +321,29 @@ describe('imports API: committing a checked upload', () => {
     expect(json<ErrorBody>(again).error.message).toMatch(new RegExp(`import ${checked.id}`));
   });
 
+  it('commits a check kept before checks kept their girders per span, counting them from the checked rows', async () => {
+    // The sample workbook under other structure numbers: a file of its own, new to the register.
+    const workbook = new ExcelJS.Workbook();
+    await workbook.xlsx.load(sampleWorkbook() as unknown as ArrayBuffer);
+    workbook.eachSheet((sheet) => {
+      const numberColumn = (sheet.getRow(1).values as unknown[]).indexOf('structure_number');
+      if (numberColumn > 0) sheet.getColumn(numberColumn).eachCell((cell) => (cell.value = String(cell.value).replace(/^BV-W-/, 'BV-V-')));
+    });
+    const checked = json<ImportDetail>(await upload('managerNetwork', Buffer.from(await workbook.xlsx.writeBuffer()), 'west renumbered.xlsx'));
+    expect(checked.problems).toEqual([]);
+    const kept = await testDb.db('imports').where({ id: checked.id }).first('girders_per_span');
+    expect(Object.values(kept.girders_per_span as Record<string, number>).reduce((sum, count) => sum + count, 0)).toBe(checked.counts.girders!.create);
+    await testDb.db('imports').where({ id: checked.id }).update({ girders_per_span: null });
+
+    expect((await step('managerNetwork', checked, 'commit')).status).toBe(200);
+    const spans = await testDb.db('spans').join('structures', 'structures.id', 'spans.structure_id').where('structures.structure_number', 'like', 'BV-V-%').select('spans.id', 'spans.girder_count');
+    expect(spans).toHaveLength(checked.counts.spans!.create);
+    for (const span of spans) {
+      const [girders] = await testDb.db('girders').where({ span_id: span.id }).count<{ count: string }[]>('* as count');
+      expect(span.girder_count).toBe(Number(girders!.count));
+    }
+  });
+
   it('writes nothing when a fault stops a commit half way', async () => {
     const file = csvOf(structureRow({ structure_number: 'BV-C-0961' }), structureRow({ structure_number: 'BV-C-0962' }));
     const checked = json<ImportDetail>(await upload('raterCentral', file, 'structures.csv'));

@@ -47,6 +47,8 @@ export interface UploadJudgement {
   readonly rows: readonly AnyConvertedRow[];
   /** Digests of what the engine passed (`girderRatingProblems`): the commit need not check the same girders again. */
   readonly rateableGirders: ReadonlySet<string>;
+  /** How many girders the file gives each span, by span key: what the commit creates a new span with. */
+  readonly girdersPerSpan: ReadonlyMap<string, number>;
 }
 
 /** Who may import each template (product.md, permission matrix): inventory by its editors, findings by inspectors and raters, prior ratings by those who run ratings — they are ratings of record. */
@@ -470,7 +472,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
   }
   const strandCounts = counts['strand-rows'];
   for (const [key, strandRows] of strandRowsOfGirder) strandCounts![strandRowsOutcome(register, key, strandRows)] += 1;
-  return { counts, problems, rows, rateableGirders: inFile.rateableGirders };
+  return { counts, problems, rows, rateableGirders: inFile.rateableGirders, girdersPerSpan: inFile.girdersPerSpan };
 }
 
 /** A girder's strand rows in the file against its stored ones: they replace them as a whole. */

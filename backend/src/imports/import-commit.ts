@@ -43,19 +43,32 @@ class WrittenRecords {
   readonly girders = new Map<string, number>();
 }
 
-/** The checked rows as the commit reads them: a template's rows a page at a time, in file order, so the whole file is never held at once. */
+/**
+ * The checked rows as the commit reads them: a template's rows a page at a time, in file order,
+ * so the whole file is never held at once; and what the check kept for the commit.
+ */
 export interface CheckedRows {
   readonly total: number;
+  rowCountOf(template: ImportTemplateName): number;
   pagesOf(template: ImportTemplateName): AsyncIterable<readonly AnyConvertedRow[]>;
+  /** Digests of the girders the engine passed in the check (`girderRatingProblems`). */
+  readonly rateableGirders: ReadonlySet<string>;
+  /** How many girders the file gives each span, by span key; null when the check did not keep it, and the commit counts them. */
+  readonly girdersPerSpan: ReadonlyMap<string, number> | null;
+}
+
+async function countGirdersPerSpan(checked: CheckedRows): Promise<ReadonlyMap<string, number>> {
+  const girdersPerSpan = new Map<string, number>();
+  for await (const page of checked.pagesOf('girders')) {
+    for (const row of page as readonly ConvertedRow<'girders'>[]) girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
+  }
+  return girdersPerSpan;
 }
 
 /** What the commit needs to know of the file as a whole: how many girders each new span gets, and each girder's strand rows. */
 async function fileFacts(checked: CheckedRows) {
-  const girdersPerSpan = new Map<string, number>();
+  const girdersPerSpan = checked.girdersPerSpan ?? (await countGirdersPerSpan(checked));
   const strandRowsOfGirder = new Map<string, StrandRow[]>();
-  for await (const page of checked.pagesOf('girders')) {
-    for (const row of page as readonly ConvertedRow<'girders'>[]) girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
-  }
   for await (const page of checked.pagesOf('strand-rows')) {
     for (const row of page as readonly ConvertedRow<'strand-rows'>[]) {
       const key = girderKey(row.body);
@@ -291,7 +304,7 @@ const NEW_ROWS_WRITERS: Partial<Record<ImportTemplateName, NewRowsWriter>> = {
  * batches, changes one by one. A row a service refuses becomes a problem at that row; the
  * caller rolls everything back when there is any.
  */
-export async function writeRows(trx: Transaction, user: SignedInUser, checked: CheckedRows, onProgress: CommitProgress, rateableGirders: ReadonlySet<string> = new Set()): Promise<ImportProblem[]> {
+export async function writeRows(trx: Transaction, user: SignedInUser, checked: CheckedRows, onProgress: CommitProgress): Promise<ImportProblem[]> {
   const writer: Writer = {
     trx,
     user,
@@ -299,13 +312,17 @@ export async function writeRows(trx: Transaction, user: SignedInUser, checked: C
     facts: await fileFacts(checked),
     girderTypeIds: new Map((await findGirderTypes(trx)).map((type) => [type.name.toLowerCase(), type.id])),
     spansGainingGirders: new Set(),
-    rateableGirders: new Set(rateableGirders),
+    rateableGirders: new Set(checked.rateableGirders),
   };
   const problems: ImportProblem[] = [];
   const refuse = (row: AnyConvertedRow, error: AppError) => problems.push(...problemsOf(row, error));
   const strandRowsDone = new Set<string>();
   let done = 0;
   for (const template of WRITE_ORDER) {
+    if (template === 'strand-rows' && allWrittenWithTheirGirders(writer)) {
+      done += checked.rowCountOf(template);
+      continue;
+    }
     for await (const page of checked.pagesOf(template)) {
       for (const batch of inChunks(page, ROWS_PER_BATCH)) {
         const oneByOne = (await NEW_ROWS_WRITERS[template]?.(writer, batch, refuse)) ?? batch;
@@ -325,6 +342,9 @@ export async function writeRows(trx: Transaction, user: SignedInUser, checked: C
   if (problems.length === 0) await recountGirders(trx, [...writer.spansGainingGirders]);
   return problems;
 }
+
+/** Whether every girder the strand rows belong to was written by the girders rows, with them: reading the strand-rows pages again would find nothing to do. */
+const allWrittenWithTheirGirders = (writer: Writer) => [...writer.facts.strandRowsOfGirder.keys()].every((key) => writer.written.girders.has(key));
 
 async function writeRow(writer: Writer, row: AnyConvertedRow, strandRowsDone: Set<string>): Promise<void> {
   switch (row.template) {

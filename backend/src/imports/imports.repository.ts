@@ -75,6 +75,8 @@ export interface CheckedImportColumns {
   counts: Partial<Record<ImportTemplateName, ImportCounts>>;
   problems: readonly ImportProblem[];
   rateable_girders: ReadonlySet<string>;
+  /** How many girders the file gives each span, by span key (`spanKey`). */
+  girders_per_span: ReadonlyMap<string, number>;
 }
 
 export async function insertCheckedImport(db: Db, columns: CheckedImportColumns, userId: number): Promise<number> {
@@ -85,6 +87,7 @@ export async function insertCheckedImport(db: Db, columns: CheckedImportColumns,
       problems: JSON.stringify(columns.problems),
       problem_count: columns.problems.length,
       rateable_girders: JSON.stringify([...columns.rateable_girders]),
+      girders_per_span: JSON.stringify(Object.fromEntries(columns.girders_per_span)),
       uploaded_by: userId,
     })
     .returning('id');
@@ -118,8 +121,8 @@ export async function insertImportRowPages(trx: Db, importId: number, rows: read
 }
 
 /** The pages of an import's checked rows, by template and page. */
-export async function findImportRowPageKeys(db: Db, importId: number): Promise<ImportRowPageKey[]> {
-  return db('import_row_pages').where({ import_id: importId }).orderBy(['template', 'page']).select('template', 'page');
+export async function findImportRowPageKeys(db: Db, importId: number): Promise<(ImportRowPageKey & { rowCount: number })[]> {
+  return db('import_row_pages').where({ import_id: importId }).orderBy(['template', 'page']).select('template', 'page', 'row_count as rowCount');
 }
 
 export async function findImportRowPage(db: Db, importId: number, { template, page }: ImportRowPageKey): Promise<AnyConvertedRow[]> {
@@ -127,16 +130,19 @@ export async function findImportRowPage(db: Db, importId: number, { template, pa
   return (row?.rows as AnyConvertedRow[] | undefined) ?? [];
 }
 
-/** Digests of the girders the engine passed in the import's check. */
-export async function findRateableGirders(db: Db, importId: number): Promise<Set<string>> {
-  const row = await db('imports').where({ id: importId }).first('rateable_girders');
-  return new Set((row?.rateable_girders as string[] | null | undefined) ?? []);
+/** What the import's check kept for its commit: digests of the girders the engine passed, and the file's girders per span (null for a check kept before it was). */
+export async function findKeptByCheck(db: Db, importId: number): Promise<{ rateableGirders: Set<string>; girdersPerSpan: Map<string, number> | null }> {
+  const row = (await db('imports').where({ id: importId }).first('rateable_girders', 'girders_per_span')) as { rateable_girders: string[] | null; girders_per_span: Record<string, number> | null } | undefined;
+  return {
+    rateableGirders: new Set(row?.rateable_girders ?? []),
+    girdersPerSpan: row?.girders_per_span ? new Map(Object.entries(row.girders_per_span)) : null,
+  };
 }
 
 /** What the check kept for the commit — the rows, the girders passed — once the import is committed or set aside. */
 export async function forgetCheckedRows(db: Db, importId: number): Promise<void> {
   await db('import_row_pages').where({ import_id: importId }).delete();
-  await db('imports').where({ id: importId }).update({ rateable_girders: null });
+  await db('imports').where({ id: importId }).update({ rateable_girders: null, girders_per_span: null });
 }
 
 /** The import row locked for a step, with who uploaded it. */

@@ -5,7 +5,7 @@ import { AppError } from '../http/app-error';
 import type { BackgroundJobs } from '../jobs/background-jobs';
 import { toSignedInUser } from '../auth/auth.service';
 import { findUserById } from '../users/users.repository';
-import { inFileOrder, judgeAgainstRegister, readAndConvert, templateNamed } from './import-check';
+import { inFileOrder, judgeAgainstRegister, readAndConvert, templateNamed, type UploadJudgement } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
 import { writeRows, type CheckedRows, type CommitProgress } from './import-commit';
 import {
@@ -18,7 +18,7 @@ import {
   findImportRowPageKeys,
   findImports,
   forgetCheckedRows,
-  findRateableGirders,
+  findKeptByCheck,
   insertCheckedImport,
   insertImportRowPages,
   updateImportProgress,
@@ -120,13 +120,18 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   const judged = await judgeAgainstRegister(db, user, read.rows);
   const problems = inFileOrder([...read.problems, ...judged.problems], read.sheets);
   const id = await withTransaction(db, async (trx) => {
-    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems, rateable_girders: problems.length === 0 ? judged.rateableGirders : new Set() }, user.id);
+    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems, ...keptForCommit(problems.length === 0 ? judged : null) }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
     if (problems.length === 0) await insertImportRowPages(trx, inserted, read.rows);
     await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts: judged.counts, problemCount: problems.length } });
     return inserted;
   });
   return toDetail(db, (await findImportById(db, id))!, user);
+}
+
+/** What a clean check keeps for its commit besides the rows; a check with problems cannot be committed, so it keeps nothing. */
+function keptForCommit(judged: UploadJudgement | null) {
+  return { rateable_girders: judged?.rateableGirders ?? new Set<string>(), girders_per_span: judged?.girdersPerSpan ?? new Map<string, number>() };
 }
 
 function importedBefore(earlier: ImportRow): AppError {
@@ -199,7 +204,7 @@ async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: numb
   await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
   const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
   if (earlier) throw importedBefore(earlier);
-  const problems = await writeRows(trx, user, await checkedRowsOf(trx, row.id), onProgress, await findRateableGirders(trx, row.id));
+  const problems = await writeRows(trx, user, await checkedRowsOf(trx, row.id), onProgress);
   await options.afterRowsWritten?.();
   if (problems.length > 0) throw new CommitRefused(problems);
   // Written into the register, the rows as checked are of no further use.
@@ -208,11 +213,13 @@ async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: numb
   await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id: row.id }, after: { contentSha256: row.content_sha256 } });
 }
 
-/** An import's checked rows, read from the database a page at a time as the commit asks for them. */
+/** An import's checked rows, read from the database a page at a time as the commit asks for them, with what its check kept. */
 async function checkedRowsOf(trx: Transaction, importId: number): Promise<CheckedRows> {
   const keys = await findImportRowPageKeys(trx, importId);
   return {
-    total: await countImportRows(trx, importId),
+    total: keys.reduce((sum, key) => sum + key.rowCount, 0),
+    ...(await findKeptByCheck(trx, importId)),
+    rowCountOf: (template) => keys.reduce((sum, key) => sum + (key.template === template ? key.rowCount : 0), 0),
     async *pagesOf(template) {
       for (const key of keys) if (key.template === template) yield await findImportRowPage(trx, importId, key);
     },
