@@ -321,15 +321,21 @@ describe('imports API: committing a checked upload', () => {
     expect(json<ErrorBody>(again).error.message).toMatch(new RegExp(`import ${checked.id}`));
   });
 
-  it('commits a check kept before checks kept their girders per span, counting them from the checked rows', async () => {
-    // The sample workbook under other structure numbers: a file of its own, new to the register.
+  /** The sample workbook under other structure numbers (`BV-W-0101` → `renumber('BV-W-0101')`): a file of its own. */
+  async function renumberedSample(renumber: (structureNumber: string) => string, edit: (workbook: ExcelJS.Workbook) => void = () => undefined): Promise<Buffer> {
     const workbook = new ExcelJS.Workbook();
     await workbook.xlsx.load(sampleWorkbook() as unknown as ArrayBuffer);
     workbook.eachSheet((sheet) => {
       const numberColumn = (sheet.getRow(1).values as unknown[]).indexOf('structure_number');
-      if (numberColumn > 0) sheet.getColumn(numberColumn).eachCell((cell) => (cell.value = String(cell.value).replace(/^BV-W-/, 'BV-V-')));
+      if (numberColumn > 0) sheet.getColumn(numberColumn).eachCell((cell, row) => row > 1 && (cell.value = renumber(String(cell.value))));
     });
-    const checked = json<ImportDetail>(await upload('managerNetwork', Buffer.from(await workbook.xlsx.writeBuffer()), 'west renumbered.xlsx'));
+    edit(workbook);
+    return Buffer.from(await workbook.xlsx.writeBuffer());
+  }
+  const withPrefix = (prefix: string) => (structureNumber: string) => structureNumber.replace(/^BV-W-/, prefix);
+
+  it('commits a check kept before checks kept their girders per span, counting them from the checked rows', async () => {
+    const checked = json<ImportDetail>(await upload('managerNetwork', await renumberedSample(withPrefix('BV-V-')), 'west renumbered.xlsx'));
     expect(checked.problems).toEqual([]);
     const kept = await testDb.db('imports').where({ id: checked.id }).first('girders_per_span');
     expect(Object.values(kept.girders_per_span as Record<string, number>).reduce((sum, count) => sum + count, 0)).toBe(checked.counts.girders!.create);
@@ -342,6 +348,31 @@ describe('imports API: committing a checked upload', () => {
       const [girders] = await testDb.db('girders').where({ span_id: span.id }).count<{ count: string }[]>('* as count');
       expect(span.girder_count).toBe(Number(girders!.count));
     }
+  });
+
+  it('adds new girders and changes stored ones from the same girders sheet', async () => {
+    const inventory = json<ImportDetail>(await upload('managerNetwork', await renumberedSample(withPrefix('BV-U-')), 'west as BV-U.xlsx'));
+    expect((await step('managerNetwork', inventory, 'commit')).status).toBe(200);
+    // The same file again with one structure under a new number (new girders), and stronger concrete in one stored girder.
+    const strongerFirstGirder = (workbook: ExcelJS.Workbook) => {
+      const girders = workbook.getWorksheet('girders')!;
+      const strengthColumn = (girders.getRow(1).values as unknown[]).indexOf('concrete_strength_mpa');
+      girders.getRow(2).getCell(strengthColumn).value = 55;
+    };
+    const file = await renumberedSample((number) => (number === 'BV-W-0108' ? 'BV-T-0108' : withPrefix('BV-U-')(number)), strongerFirstGirder);
+    const checked = json<ImportDetail>(await upload('managerNetwork', file, 'west with a new bridge.xlsx'));
+    expect(checked.problems).toEqual([]);
+    const firstRow = (await new ExcelJS.Workbook().xlsx.load(file as unknown as ArrayBuffer)).getWorksheet('girders')!.getRow(2).values as unknown[];
+    expect(firstRow.slice(1, 4)).toEqual(['BV-U-0101', 1, 1]);
+    const newGirders = checked.counts.girders!.create;
+    expect(newGirders).toBeGreaterThan(0);
+    expect(checked.counts.girders).toMatchObject({ update: 1 });
+
+    expect((await step('managerNetwork', checked, 'commit')).status).toBe(200);
+    const girdersOf = (structureNumber: string) =>
+      testDb.db('girders').join('spans', 'spans.id', 'girders.span_id').join('structures', 'structures.id', 'spans.structure_id').where('structures.structure_number', structureNumber).orderBy(['spans.span_index', 'girders.girder_number']).select('girders.concrete');
+    expect((await girdersOf('BV-U-0101'))[0].concrete).toMatchObject({ strengthMpa: 55 });
+    expect(await girdersOf('BV-T-0108')).toHaveLength(newGirders);
   });
 
   it('writes nothing when a fault stops a commit half way', async () => {

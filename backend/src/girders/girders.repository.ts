@@ -178,6 +178,12 @@ export async function findGirdersOfSpans(db: Database | Transaction, spanIds: re
   return girdersWithPlace(db).whereRaw('g.span_id = any(?)', [[...spanIds]]).orderBy(['g.span_id', 'g.girder_number']);
 }
 
+/** Which girder numbers these spans have already: a light read for telling new girders from stored ones. */
+export async function findGirderNumbersOfSpans(db: Database | Transaction, spanIds: readonly number[]): Promise<{ span_id: number; girder_number: number }[]> {
+  if (spanIds.length === 0) return [];
+  return db('girders').whereRaw('span_id = any(?)', [[...spanIds]]).select('span_id', 'girder_number');
+}
+
 /** The strand rows of these girders in order, by girder id. */
 export async function findStrandRowsOfGirders(db: Database | Transaction, girderIds: readonly number[]): Promise<Map<number, StrandRowRecord[]>> {
   const byGirder = new Map<number, StrandRowRecord[]>(girderIds.map((id) => [id, []]));

@@ -354,37 +354,86 @@ export async function createGirders(
   girders: readonly NewGirder[],
   { rateableGirders = new Set<string>() }: { rateableGirders?: Set<string> } = {},
 ): Promise<ManyCreated> {
-  return withTransaction(db, async (trx) => {
-    const spans = new Map((await findSpansWithPlace(trx, [...new Set(girders.map((girder) => girder.spanId))])).map((span) => [span.id, span]));
+  let created: ManyCreated = { ids: [], refused: new Map() };
+  const onePage = (async function* () {
+    yield girders;
+  })();
+  await createGirdersPageByPage({ db, user }, [...new Set(girders.map((girder) => girder.spanId))], onePage, { rateableGirders, onWritten: (_page, written) => (created = written) });
+  return created;
+}
+
+/** What `createGirdersPageByPage` reports of a page once it is written: as `createGirders` answers for those girders. */
+export type GirdersPageWritten = (page: readonly NewGirder[], created: ManyCreated) => void;
+
+/**
+ * `createGirders` for girders that come a page at a time (an import's checked rows), on spans
+ * among `spanIds`: the engine checks the next page while the database writes this one, so
+ * neither waits for the other. `onWritten` is told of each page in order, once its girders are
+ * written; a page's spans become due for re-rating.
+ */
+export async function createGirdersPageByPage(
+  { db, user }: { db: Database | Transaction; user: SignedInUser },
+  spanIds: readonly number[],
+  pages: AsyncIterable<readonly NewGirder[]>,
+  { rateableGirders = new Set<string>(), onWritten }: { rateableGirders?: Set<string>; onWritten: GirdersPageWritten },
+): Promise<void> {
+  await withTransaction(db, async (trx) => {
+    const spans = new Map((await findSpansWithPlace(trx, spanIds)).map((span) => [span.id, span]));
     const types = new Map((await findGirderTypes(trx)).map((type) => [type.id, type]));
-    const refused = new Map<number, AppError>();
-    const idsInOrder: (number | null)[] = girders.map(() => null);
     const writes = new WritesInFlight();
+    const pagesBeingWritten: Promise<void>[] = [];
     try {
-      for (let start = 0; start < girders.length; start += GIRDERS_PER_STEP) {
-        const accepted: AcceptedGirder[] = [];
-        for (let index = start; index < Math.min(start + GIRDERS_PER_STEP, girders.length); index += 1) {
-          try {
-            accepted.push({ index, girder: girders[index]!, insert: checkedNewGirder(user, spans.get(girders[index]!.spanId), types, girders[index]!, rateableGirders) });
-          } catch (error) {
-            if (!(error instanceof AppError)) throw error;
-            refused.set(index, error);
+      for await (const page of pages) {
+        // The engine keeps one page ahead of the database, not the whole file: each page waiting holds its statements in memory.
+        if (pagesBeingWritten.length > PAGES_AHEAD) await pagesBeingWritten.shift();
+        const refused = new Map<number, AppError>();
+        const idsInOrder: (number | null)[] = page.map(() => null);
+        const stepsWritten: Promise<void>[] = [];
+        for (let start = 0; start < page.length; start += GIRDERS_PER_STEP) {
+          const accepted: AcceptedGirder[] = [];
+          for (let index = start; index < Math.min(start + GIRDERS_PER_STEP, page.length); index += 1) {
+            try {
+              accepted.push({ index, girder: page[index]!, insert: checkedNewGirder(user, spans.get(page[index]!.spanId), types, page[index]!, rateableGirders) });
+            } catch (error) {
+              if (!(error instanceof AppError)) throw error;
+              refused.set(index, error);
+            }
+            if ((index + 1) % CHECKS_BETWEEN_TURNS === 0) await writes.letThemGo();
           }
+          const stepWritten = writeCheckedGirders(trx, user, accepted, idsInOrder);
+          stepsWritten.push(stepWritten);
+          writes.send(stepWritten);
+          await writes.letThemGo();
         }
-        writes.send(writeCheckedGirders(trx, user, accepted, idsInOrder));
-        await writes.letThemGo();
+        const written = Promise.all(stepsWritten).then(() => pageWritten(trx, page, { ids: idsInOrder, refused }, onWritten));
+        writes.send(written);
+        pagesBeingWritten.push(written);
       }
     } finally {
       await writes.drain();
     }
-    await markSpansReratingDue(trx, [...new Set(girders.flatMap((girder, index) => (idsInOrder[index] === null ? [] : [girder.spanId])))]);
-    return { ids: idsInOrder, refused };
   });
+}
+
+/** Pages checked while the one before them is still being written. */
+const PAGES_AHEAD = 1;
+
+/**
+ * Girders checked between turns of the event loop: the connection sends the next statement
+ * waiting only in a turn, so the database would otherwise sit idle while the engine checks.
+ */
+const CHECKS_BETWEEN_TURNS = 50;
+
+/** A page's girders all written: their spans become due for re-rating, and the caller is told. */
+async function pageWritten(trx: Transaction, page: readonly NewGirder[], created: ManyCreated, onWritten: GirdersPageWritten): Promise<void> {
+  onWritten(page, created);
+  await markSpansReratingDue(trx, [...new Set(page.flatMap((girder, index) => (created.ids[index] === null ? [] : [girder.spanId])))]);
 }
 
 /**
  * Girders checked at a time: while the database writes one step's girders, the engine checks
- * the next step's.
+ * the next step's. Steps are sent without waiting, so the engine runs ahead by as many as the
+ * database has not yet written.
  */
 const GIRDERS_PER_STEP = 500;
 

@@ -1,6 +1,7 @@
 import {
   girderKey,
   spanKey,
+  spanOfKey,
   type AnyConvertedRow,
   type ConvertedRow,
   type GirderRecord,
@@ -13,8 +14,8 @@ import type { Transaction } from '../db/database';
 import { inChunks } from '../db/many-created';
 import { ROWS_PER_PAGE } from './imports.repository';
 import { toGirderRecord } from '../girders/girder-record';
-import { findGirderById, findGirdersOfSpans, findGirderTypes, findStrandRows } from '../girders/girders.repository';
-import { changeGirder, createGirder, createGirders, type NewGirder } from '../girders/girders.service';
+import { findGirderById, findGirderNumbersOfSpans, findGirdersOfSpans, findGirderTypes, findStrandRows } from '../girders/girders.repository';
+import { changeGirder, createGirder, createGirdersPageByPage, type GirdersPageWritten, type NewGirder } from '../girders/girders.service';
 import { AppError } from '../http/app-error';
 import { findSpansOfStructure, findSpansOfStructures, recountGirders } from '../spans/spans.repository';
 import { changeSpan, createSpan, createSpans, type NewSpan, type NewSpanFields } from '../spans/spans.service';
@@ -200,15 +201,18 @@ async function writeStrandRows(writer: Writer, row: ConvertedRow<'strand-rows'>,
 /**
  * New records are written many at a time: a file of tens of thousands of girders would take
  * minutes row by row. Each batch goes through the services' own `create…s`, on the same rules
- * as one record through the API. A batch is a whole stored page: the services overlap their
- * checking with the database's writing within a batch, but not across batches.
+ * as one record through the API. A batch is a whole stored page. Girders, by far the most rows
+ * of an inventory file, go page after page without a pause (`writeGirderRows`).
  */
 const ROWS_PER_BATCH = ROWS_PER_PAGE;
 
 /** A template's rows, split into those new to the register (written in batches here) and those to write one by one (changes). */
-type NewRowsWriter = (writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void) => Promise<AnyConvertedRow[]>;
+type NewRowsWriter = (writer: Writer, rows: readonly AnyConvertedRow[], refuse: Refuse) => Promise<AnyConvertedRow[]>;
 
-async function writeNewStructures(writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void): Promise<AnyConvertedRow[]> {
+/** Names a row a service refused among the commit's problems. */
+type Refuse = (row: AnyConvertedRow, error: AppError) => void;
+
+async function writeNewStructures(writer: Writer, rows: readonly AnyConvertedRow[], refuse: Refuse): Promise<AnyConvertedRow[]> {
   const structureRows = rows as readonly ConvertedRow<'structures'>[];
   const stored = new Set((await findStructuresByNumbers(writer.trx, structureRows.map((row) => row.body.structureNumber))).map((row) => row.structure_number));
   const fresh = structureRows.filter((row) => !stored.has(row.body.structureNumber));
@@ -227,7 +231,7 @@ async function knownStructureIds(writer: Writer, structureNumbers: readonly stri
   for (const row of await findStructuresByNumbers(writer.trx, unknown)) writer.written.structures.set(row.structure_number, row.id);
 }
 
-async function writeNewSpans(writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void): Promise<AnyConvertedRow[]> {
+async function writeNewSpans(writer: Writer, rows: readonly AnyConvertedRow[], refuse: Refuse): Promise<AnyConvertedRow[]> {
   const spanRows = rows as readonly ConvertedRow<'spans'>[];
   await knownStructureIds(writer, spanRows.map((row) => row.body.structureNumber));
   const structureIds = [...new Set(spanRows.flatMap((row) => writer.written.structures.get(row.body.structureNumber) ?? []))];
@@ -254,32 +258,70 @@ async function writeNewSpans(writer: Writer, rows: readonly AnyConvertedRow[], r
   return spanRows.filter(isStored);
 }
 
-async function writeNewGirders(writer: Writer, rows: readonly AnyConvertedRow[], refuse: (row: AnyConvertedRow, error: AppError) => void): Promise<AnyConvertedRow[]> {
-  const girderRows = rows as readonly ConvertedRow<'girders'>[];
-  await knownSpanIds(writer, girderRows.map((row) => row.body));
-  const spanIds = [...new Set(girderRows.flatMap((row) => writer.written.spans.get(spanKey(row.body)) ?? []))];
-  const storedGirders = new Set((await findGirdersOfSpans(writer.trx, spanIds)).map((girder) => `${girder.span_id}/${girder.girder_number}`));
-  const isStored = (row: ConvertedRow<'girders'>) => storedGirders.has(`${writer.written.spans.get(spanKey(row.body))}/${row.body.girderNumber}`);
-  const fresh: { row: ConvertedRow<'girders'>; girder: NewGirder }[] = [];
-  for (const row of girderRows) {
+/** The spans the file's girders rows are on (written by the file or already stored), by register id; each is known to the writer by its key. */
+async function spansOfFileGirders(writer: Writer): Promise<number[]> {
+  const keys = [...writer.facts.girdersPerSpan.keys()];
+  await knownSpanIds(writer, keys.map(spanOfKey));
+  return [...new Set(keys.flatMap((key) => writer.written.spans.get(key) ?? []))];
+}
+
+/** A page of girders rows as the girders new to the register they add; a row refused here is named, one of a stored girder left for `writeGirder`. */
+function newGirdersOf(writer: Writer, page: readonly ConvertedRow<'girders'>[], isStored: (row: ConvertedRow<'girders'>) => boolean, refuse: Refuse) {
+  const rows: ConvertedRow<'girders'>[] = [];
+  const girders: NewGirder[] = [];
+  for (const row of page) {
     if (isStored(row)) continue;
     try {
       const spanRowId = writer.written.spans.get(spanKey(row.body));
       if (spanRowId === undefined) throw AppError.invalidFields([{ field: 'span_index', message: `structure ${row.body.structureNumber} has no span ${row.body.spanIndex}` }]);
-      fresh.push({ row, girder: { spanId: spanRowId, girderNumber: row.body.girderNumber, record: recordOf(writer, row, writer.facts.strandRowsOfGirder.get(girderKey(row.body)) ?? []) } });
+      girders.push({ spanId: spanRowId, girderNumber: row.body.girderNumber, record: recordOf(writer, row, writer.facts.strandRowsOfGirder.get(girderKey(row.body)) ?? []) });
+      rows.push(row);
     } catch (error) {
       if (!(error instanceof AppError)) throw error;
       refuse(row, error);
     }
   }
-  const created = await createGirders({ db: writer.trx, user: writer.user }, fresh.map((each) => each.girder), { rateableGirders: writer.rateableGirders });
-  fresh.forEach(({ row, girder }, index) => {
-    const id = created.ids[index];
-    if (!id) return refuse(row, created.refused.get(index)!);
-    writer.written.girders.set(girderKey(row.body), id);
-    writer.spansGainingGirders.add(girder.spanId);
-  });
-  return girderRows.filter(isStored);
+  return { rows, girders };
+}
+
+/**
+ * The girders rows. Girders new to the register go page by page through the service's
+ * `createGirdersPageByPage`, which checks a page while the database writes the one before: which
+ * girders are stored already is read once beforehand, and the pages come from another
+ * connection, so nothing waits on this transaction between pages. A file's keys are unique, so
+ * no page adds a girder another page names. Rows of girders already stored are changed one by
+ * one afterwards, in a second reading of the pages.
+ */
+async function writeGirderRows(writer: Writer, checked: CheckedRows, refuse: Refuse, pageSent: (rows: number) => Promise<void>): Promise<void> {
+  const spanIds = await spansOfFileGirders(writer);
+  const stored = new Set((await findGirderNumbersOfSpans(writer.trx, spanIds)).map((girder) => `${girder.span_id}/${girder.girder_number}`));
+  const isStored = (row: ConvertedRow<'girders'>) => stored.has(`${writer.written.spans.get(spanKey(row.body))}/${row.body.girderNumber}`);
+  const rowsOfPage = new Map<readonly NewGirder[], readonly ConvertedRow<'girders'>[]>();
+  let changesToWrite = false;
+  async function* newGirderPages() {
+    for await (const page of checked.pagesOf('girders') as AsyncIterable<readonly ConvertedRow<'girders'>[]>) {
+      const fresh = newGirdersOf(writer, page, isStored, refuse);
+      changesToWrite ||= fresh.rows.length < page.length;
+      rowsOfPage.set(fresh.girders, fresh.rows);
+      yield fresh.girders;
+      await pageSent(page.length);
+    }
+  }
+  const onWritten: GirdersPageWritten = (girders, created) => {
+    const rows = rowsOfPage.get(girders)!;
+    rowsOfPage.delete(girders);
+    rows.forEach((row, index) => {
+      const id = created.ids[index];
+      if (!id) return refuse(row, created.refused.get(index)!);
+      writer.written.girders.set(girderKey(row.body), id);
+      writer.spansGainingGirders.add(girders[index]!.spanId);
+    });
+  };
+  await createGirdersPageByPage({ db: writer.trx, user: writer.user }, spanIds, newGirderPages(), { rateableGirders: writer.rateableGirders, onWritten });
+  if (!changesToWrite) return;
+  for await (const page of checked.pagesOf('girders') as AsyncIterable<readonly ConvertedRow<'girders'>[]>) {
+    for (const row of page) if (isStored(row)) await writeOneByOne(writer, row, new Set(), refuse);
+  }
 }
 
 /** Register ids of the spans these keys name (written by the file or already stored). */
@@ -295,7 +337,6 @@ async function knownSpanIds(writer: Writer, keys: readonly { structureNumber: st
 const NEW_ROWS_WRITERS: Partial<Record<ImportTemplateName, NewRowsWriter>> = {
   structures: writeNewStructures,
   spans: writeNewSpans,
-  girders: writeNewGirders,
 };
 
 /**
@@ -315,27 +356,27 @@ export async function writeRows(trx: Transaction, user: SignedInUser, checked: C
     rateableGirders: new Set(checked.rateableGirders),
   };
   const problems: ImportProblem[] = [];
-  const refuse = (row: AnyConvertedRow, error: AppError) => problems.push(...problemsOf(row, error));
+  const refuse: Refuse = (row, error) => problems.push(...problemsOf(row, error));
   const strandRowsDone = new Set<string>();
   let done = 0;
+  const progressed = async (rows: number) => {
+    done += rows;
+    await onProgress(done, checked.total);
+  };
   for (const template of WRITE_ORDER) {
+    if (template === 'girders') {
+      await writeGirderRows(writer, checked, refuse, progressed);
+      continue;
+    }
     if (template === 'strand-rows' && allWrittenWithTheirGirders(writer)) {
-      done += checked.rowCountOf(template);
+      await progressed(checked.rowCountOf(template));
       continue;
     }
     for await (const page of checked.pagesOf(template)) {
       for (const batch of inChunks(page, ROWS_PER_BATCH)) {
         const oneByOne = (await NEW_ROWS_WRITERS[template]?.(writer, batch, refuse)) ?? batch;
-        for (const row of oneByOne) {
-          try {
-            await writeRow(writer, row, strandRowsDone);
-          } catch (error) {
-            if (!(error instanceof AppError)) throw error;
-            refuse(row, error);
-          }
-        }
-        done += batch.length;
-        await onProgress(done, checked.total);
+        for (const row of oneByOne) await writeOneByOne(writer, row, strandRowsDone, refuse);
+        await progressed(batch.length);
       }
     }
   }
@@ -345,6 +386,16 @@ export async function writeRows(trx: Transaction, user: SignedInUser, checked: C
 
 /** Whether every girder the strand rows belong to was written by the girders rows, with them: reading the strand-rows pages again would find nothing to do. */
 const allWrittenWithTheirGirders = (writer: Writer) => [...writer.facts.strandRowsOfGirder.keys()].every((key) => writer.written.girders.has(key));
+
+/** A row written on its own (a change to what is stored), or named among the problems when a service refuses it. */
+async function writeOneByOne(writer: Writer, row: AnyConvertedRow, strandRowsDone: Set<string>, refuse: Refuse): Promise<void> {
+  try {
+    await writeRow(writer, row, strandRowsDone);
+  } catch (error) {
+    if (!(error instanceof AppError)) throw error;
+    refuse(row, error);
+  }
+}
 
 async function writeRow(writer: Writer, row: AnyConvertedRow, strandRowsDone: Set<string>): Promise<void> {
   switch (row.template) {

@@ -179,7 +179,7 @@ export async function commitImport({ db, user, queue }: Writer & { queue?: Commi
       const row = await importForStep(trx, user, id, version);
       if (row.problem_count > 0) throw AppError.readOnly(`Import ${id} has problems: fix the file and upload it again`);
       if (queue && row.byte_size >= queue.backgroundFromBytes) return queueCommit(trx, queue.jobs, user, row);
-      await writeCommit(trx, user, row, () => undefined, options);
+      await writeCommit(db, trx, user, row, () => undefined, options);
     });
   } catch (error) {
     if (isUniqueViolation(error)) throw alreadyImported(id);
@@ -198,13 +198,13 @@ async function queueCommit(trx: Transaction, jobs: BackgroundJobs, user: SignedI
   await recordAuditEvent({ db: trx, user, action: 'import.queued', entity: { type: 'import', id: row.id }, after: { rows: total } });
 }
 
-/** The rows' writing and the import's `committed` state, inside the caller's transaction; refused rows throw `CommitRefused`. */
-async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: number; content_sha256: string }, onProgress: CommitProgress, options: CommitOptions = {}): Promise<void> {
+/** The rows' writing and the import's `committed` state, inside the caller's transaction (`db` is its pool); refused rows throw `CommitRefused`. */
+async function writeCommit(db: Database, trx: Transaction, user: SignedInUser, row: { id: number; content_sha256: string }, onProgress: CommitProgress, options: CommitOptions = {}): Promise<void> {
   // Commits of the same bytes take turns, so the second finds the first done and is refused.
   await trx.raw('select pg_advisory_xact_lock(hashtextextended(?, 0))', [row.content_sha256]);
   const earlier = await findCommittedImportOfContent(trx, row.content_sha256);
   if (earlier) throw importedBefore(earlier);
-  const problems = await writeRows(trx, user, await checkedRowsOf(trx, row.id), onProgress);
+  const problems = await writeRows(trx, user, await checkedRowsOf(db, trx, row.id), onProgress);
   await options.afterRowsWritten?.();
   if (problems.length > 0) throw new CommitRefused(problems);
   // Written into the register, the rows as checked are of no further use.
@@ -213,17 +213,33 @@ async function writeCommit(trx: Transaction, user: SignedInUser, row: { id: numb
   await recordAuditEvent({ db: trx, user, action: 'import.committed', entity: { type: 'import', id: row.id }, after: { contentSha256: row.content_sha256 } });
 }
 
-/** An import's checked rows, read from the database a page at a time as the commit asks for them, with what its check kept. */
-async function checkedRowsOf(trx: Transaction, importId: number): Promise<CheckedRows> {
+/**
+ * An import's checked rows, read from the database a page at a time as the commit asks for them,
+ * with what its check kept. The pages are read on a connection of their own, the next one while
+ * the commit writes the last: written once by the check, they do not change while the import is
+ * locked for its commit, and reading them in the commit's transaction would wait for its writes.
+ */
+async function checkedRowsOf(db: Database, trx: Transaction, importId: number): Promise<CheckedRows> {
   const keys = await findImportRowPageKeys(trx, importId);
   return {
     total: keys.reduce((sum, key) => sum + key.rowCount, 0),
     ...(await findKeptByCheck(trx, importId)),
     rowCountOf: (template) => keys.reduce((sum, key) => sum + (key.template === template ? key.rowCount : 0), 0),
-    async *pagesOf(template) {
-      for (const key of keys) if (key.template === template) yield await findImportRowPage(trx, importId, key);
-    },
+    pagesOf: (template) => pagesReadAhead(keys.filter((key) => key.template === template).map((key) => () => findImportRowPage(db, importId, key))),
   };
+}
+
+/** The pages in order, each asked for while the one before is in use. */
+async function* pagesReadAhead<T>(reads: readonly (() => Promise<T>)[]): AsyncGenerator<T> {
+  // Settled into a value or an error at once: a read that fails while its page is not yet wanted is not left unhandled.
+  const started = (read: (() => Promise<T>) | undefined) => read?.().then((page) => ({ page }), (error: unknown) => ({ error }));
+  let next = started(reads[0]);
+  for (let at = 0; at < reads.length; at += 1) {
+    const read = (await next)!;
+    if ('error' in read) throw read.error;
+    next = started(reads[at + 1]);
+    yield read.page;
+  }
 }
 
 async function markFailed(db: Database, user: SignedInUser, id: number, problems: readonly ImportProblem[]): Promise<void> {
@@ -252,7 +268,7 @@ export async function runQueuedCommit(db: Database, { importId, userId }: { impo
     await updateImportProgress(db, importId, done, total);
   };
   try {
-    await withTransaction(db, (trx) => writeCommit(trx, user, row, onProgress));
+    await withTransaction(db, (trx) => writeCommit(db, trx, user, row, onProgress));
   } catch (error) {
     await markFailed(db, user, importId, problemsOfStoppedCommit(error));
   }

@@ -27,6 +27,7 @@ export {
   checkUpload,
   girderKey,
   spanKey,
+  spanOfKey,
   structureKey,
   type AnyConvertedRow,
   type GirderReference,

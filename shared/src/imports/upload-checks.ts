@@ -39,6 +39,11 @@ export interface UploadCheck {
 
 export const structureKey = (structureNumber: string): string => JSON.stringify([structureNumber]);
 export const spanKey = (span: SpanReference): string => JSON.stringify([span.structureNumber, span.spanIndex]);
+/** The span a `spanKey` stands for. */
+export function spanOfKey(key: string): SpanReference {
+  const [structureNumber, spanIndex] = JSON.parse(key) as [string, number];
+  return { structureNumber, spanIndex };
+}
 export const girderKey = (girder: GirderReference): string => JSON.stringify([girder.structureNumber, girder.spanIndex, girder.girderNumber]);
 
 /** What identifies a row within its template, as people read it. */
