@@ -1,4 +1,4 @@
-import { createHash } from 'node:crypto';
+import { hash } from 'node:crypto';
 import { ENGINE_VERSION, LIBRARY_VEHICLE_IDS, parseRateFile, type CalcFileIssue, type DamageEntry, type GirderTypeChange, type NewGirderType, type GirderChange, type GirderDetail, type GirderRecord, type GirderSummary, type GirderTypeSummary, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent, recordAuditEvents } from '../audit/audit-events';
 import { changedFields } from '../audit/changed-fields';
@@ -188,7 +188,7 @@ function rateInputsDigest(record: GirderRecord, typeSection: Record<string, unkn
   const sectionText = sharedJsonText(typeSection);
   const spanText = storedSpanText(span);
   if (sectionText === null || spanText === null || !isPlainJson(record) || !isPlainJson(girderNumber) || !isPlainJson(skewDeg)) return null;
-  return createHash('sha256').update(`${ENGINE_VERSION}|${girderNumber}|${skewDeg}|${sectionText}|${spanText}|${JSON.stringify(record)}`).digest('base64');
+  return hash('sha256', `${ENGINE_VERSION}|${girderNumber}|${skewDeg}|${sectionText}|${spanText}|${JSON.stringify(record)}`, 'base64');
 }
 
 const jsonTextOf = new WeakMap<object, string | null>();

@@ -216,11 +216,13 @@ export async function refreshStructureRatingFigures(trx: Transaction, structureI
 
 /**
  * Flags spans "re-rating due" as of now: the flag keeps the latest change, so only a rating run
- * after every change clears it.
+ * after every change clears it. "Now" is the transaction's start, so a span flagged already in
+ * this transaction is left as it is: an import flags each new span as it adds it, and again with
+ * each page of its girders, and writing a row again costs the database a new version of it.
  */
 export async function markSpansReratingDue(trx: Transaction, spanIds: readonly number[]): Promise<void> {
   if (spanIds.length === 0) return;
-  await trx('spans').whereIn('id', spanIds).update({ rerating_due_since: trx.fn.now() });
+  await trx('spans').whereRaw('id = any(?)', [[...spanIds]]).whereRaw('rerating_due_since is distinct from current_timestamp').update({ rerating_due_since: trx.fn.now() });
 }
 
 /** Clears the span's flag when the approved rating was run after the change that raised it. */

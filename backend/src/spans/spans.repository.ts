@@ -81,7 +81,7 @@ export interface SpanInsert {
 /** Rows per insert statement: a span row has about 20 columns, so this stays far under 65 535 parameters. */
 const ROWS_PER_INSERT = 1000;
 
-/** Inserts simply supported spans in a few statements; gives back their ids in the order given. */
+/** Inserts simply supported spans, due for a rating, in a few statements; gives back their ids in the order given. */
 export async function insertSpans(trx: Transaction, spans: readonly SpanInsert[], userId: number): Promise<number[]> {
   const ids: number[] = [];
   for (const chunk of inChunks(spans, ROWS_PER_INSERT)) {
@@ -93,6 +93,8 @@ export async function insertSpans(trx: Transaction, spans: readonly SpanInsert[]
           span_index: span.spanIndex,
           girder_count: span.girderCount,
           support_type: 'simple',
+          // A new span is due for a rating from the start.
+          rerating_due_since: trx.fn.now(),
           created_by: userId,
           updated_by: userId,
         })),
@@ -105,10 +107,15 @@ export async function insertSpans(trx: Transaction, spans: readonly SpanInsert[]
   return ids;
 }
 
-/** Sets each span's girder count to the girders stored on it. */
+/** Sets each span's girder count to the girders stored on it; a span whose count is right already is not written again. */
 export async function recountGirders(trx: Transaction, spanIds: readonly number[]): Promise<void> {
   if (spanIds.length === 0) return;
-  await trx.raw('update spans as sp set girder_count = (select count(*) from girders as g where g.span_id = sp.id) where sp.id = any(?)', [[...spanIds]]);
+  await trx.raw(
+    `update spans as sp set girder_count = counted.girders
+       from (select s.id, count(g.id) as girders from spans as s left join girders as g on g.span_id = s.id where s.id = any(?) group by s.id) as counted
+      where sp.id = counted.id and sp.girder_count <> counted.girders`,
+    [[...spanIds]],
+  );
 }
 
 /** These spans, each with the district and skew of its structure (what writing girders on them is checked against). */

@@ -144,8 +144,6 @@ export async function createSpans({ db, user }: { db: Database | Transaction; us
       user,
       accepted.map(({ span: { structureId, spanIndex, fields } }, at) => ({ action: 'span.created', entity: { type: 'span', id: ids[at]! }, after: { structureId, spanIndex, ...fields } })),
     );
-    // A new span is due for a rating from the start.
-    await markSpansReratingDue(trx, ids);
     const idsInOrder: (number | null)[] = spans.map(() => null);
     accepted.forEach((each, at) => (idsInOrder[each.index] = ids[at]!));
     return { ids: idsInOrder, refused };
