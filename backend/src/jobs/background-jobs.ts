@@ -5,7 +5,7 @@ import type { Logger } from '../logger';
 
 /** Work that outlasts a request, queued in Spanledger's own PostgreSQL (pg-boss), done by the server that takes it. */
 export interface BackgroundJobs {
-  /** Queues a job inside the caller's transaction: it exists exactly when the transaction commits. */
+  /** Queues a job inside the caller's transaction: it exists exactly when the transaction commits, and this server starts on it then. */
   send(queue: JobQueueName, data: object, trx: Transaction): Promise<void>;
   stop(): Promise<void>;
 }
@@ -47,18 +47,25 @@ export async function startBackgroundJobs(databaseUrl: string, logger: Logger, h
   const boss = new PgBoss({ connectionString: databaseUrl, schema: 'pgboss', max: 3, schedule: false, application_name: 'spanledger-jobs' });
   boss.on('error', (error: unknown) => logger.error({ err: error }, 'background job queue error'));
   await boss.start();
+  const workerOf = new Map<JobQueueName, string>();
   for (const queue of JOB_QUEUES) {
     await boss.createQueue(queue, { name: queue, ...QUEUE_OPTIONS });
-    await boss.work<Record<string, unknown>>(queue, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    const workerId = await boss.work<Record<string, unknown>>(queue, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
       logger.info({ queue, jobId: job!.id }, 'background job started');
       await handlers[queue](job!.data);
       logger.info({ queue, jobId: job!.id }, 'background job done');
     });
+    workerOf.set(queue, workerId);
   }
   return {
     async send(queue, data, trx) {
       const id = await boss.send(queue, data, { db: onTransaction(trx) });
       if (id === null) throw new Error(`The background job queue "${queue}" refused a job`);
+      // Once the job is committed, this server's worker looks for it at once rather than at its next poll.
+      trx.executionPromise.then(
+        () => boss.notifyWorker(workerOf.get(queue)!),
+        () => undefined,
+      );
     },
     async stop() {
       await boss.stop({ graceful: true, wait: true, timeout: 30_000 });
