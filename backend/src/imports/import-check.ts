@@ -2,6 +2,7 @@ import { isDeepStrictEqual } from 'node:util';
 import {
   COLUMNS_SHEET_NAME,
   IMPORT_TEMPLATE_NAMES,
+  templateNamed,
   IMPORT_TEMPLATES,
   canInDistrict,
   checkUpload,
@@ -60,12 +61,6 @@ const ACTION_OF: Readonly<Record<ImportTemplateName, Action>> = {
   findings: 'importFindings',
   'prior-ratings': 'runRatings',
 };
-
-/** The template a sheet or file name stands for ("Strand rows", "strand_rows", "strand-rows"), if any. */
-export function templateNamed(text: string): ImportTemplateName | null {
-  const name = text.trim().toLowerCase().replace(/[ _]+/g, '-');
-  return IMPORT_TEMPLATE_NAMES.find((template) => template === name) ?? null;
-}
 
 /**
  * Reads every row of the file and checks it against its template (a sheet is named after its

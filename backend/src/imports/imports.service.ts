@@ -1,11 +1,11 @@
-import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, type ImportDetail, type ImportProblem, type ImportSummary, type ImportTemplateName, type SignedInUser } from '../../../shared/src';
+import { IMPORT_PROBLEMS_LISTED, IMPORT_STATE_NAMES, templateOfFileName, type ImportDetail, type ImportProblem, type ImportSummary, type ImportTemplateName, type SignedInUser } from '../../../shared/src';
 import { recordAuditEvent } from '../audit/audit-events';
 import { withTransaction, type Database, type Transaction } from '../db/database';
 import { AppError } from '../http/app-error';
 import type { BackgroundJobs } from '../jobs/background-jobs';
 import { toSignedInUser } from '../auth/auth.service';
 import { findUserById } from '../users/users.repository';
-import { inFileOrder, judgeAgainstRegister, readAndConvert, templateNamed, type UploadJudgement } from './import-check';
+import { inFileOrder, judgeAgainstRegister, readAndConvert, type UploadJudgement } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
 import { writeRows, type CheckedRows, type CommitProgress } from './import-commit';
 import {
@@ -87,7 +87,7 @@ function problemOf(error: ImportFileError): ImportProblem {
 }
 
 async function readFile(file: ReceivedImportFile, fileKind: 'csv' | 'xlsx') {
-  const csvTemplate: ImportTemplateName | null = fileKind === 'csv' ? (file.template ?? templateNamed(file.fileName.replace(/\.[^.]*$/, ''))) : null;
+  const csvTemplate: ImportTemplateName | null = fileKind === 'csv' ? (file.template ?? templateOfFileName(file.fileName)) : null;
   if (fileKind === 'csv' && csvTemplate === null) {
     throw AppError.invalidFields([{ field: 'template', message: 'a CSV file holds one template: choose which, or name the file after it (structures.csv, spans.csv, …)' }]);
   }
