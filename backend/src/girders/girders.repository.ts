@@ -239,8 +239,8 @@ export interface GirderInsert {
   readonly strandRows: readonly StrandRowRecord[];
 }
 
-/** Rows per insert statement: a few megabytes of JSON text. */
-const ROWS_PER_INSERT = 1000;
+/** Rows per insert statement: a few megabytes of JSON text; as many as the service's step of girders (`GIRDERS_PER_STEP`). */
+const ROWS_PER_INSERT = 2500;
 
 /** Inserts girders with their strand rows in a few statements; gives back their ids in the order given. */
 export async function insertGirders(trx: Transaction, girders: readonly GirderInsert[], userId: number): Promise<number[]> {

@@ -433,9 +433,13 @@ async function pageWritten(trx: Transaction, page: readonly NewGirder[], created
 /**
  * Girders checked at a time: while the database writes one step's girders, the engine checks
  * the next step's. Steps are sent without waiting, so the engine runs ahead by as many as the
- * database has not yet written.
+ * database has not yet written. Few large steps beat many small ones: a statement leaves only in
+ * a turn of the event loop, and the database waits for each (`npm run bench`, 50 000 girders:
+ * steps of 500 committed in about 6.3 s, of 2 500 in 5.8 s, of 5 000 in 5.9 s). A step's
+ * girders, strand rows and history entries are a statement each (`ROWS_PER_INSERT`,
+ * `EVENTS_PER_INSERT`).
  */
-const GIRDERS_PER_STEP = 500;
+const GIRDERS_PER_STEP = 2500;
 
 interface AcceptedGirder {
   readonly index: number;
