@@ -1,6 +1,7 @@
 import type { AnyConvertedRow, ImportCounts, ImportProblem, ImportState, ImportTemplateName } from '../../../shared/src';
 import type { Database, Transaction } from '../db/database';
 import { inChunks } from '../db/many-created';
+import { WritesInFlight } from '../db/writes-in-flight';
 
 type Db = Database | Transaction;
 
@@ -111,12 +112,19 @@ export async function insertImportRowPages(trx: Db, importId: number, rows: read
     if (ofTemplate) ofTemplate.push(row);
     else byTemplate.set(row.template, [row]);
   }
-  for (const [template, ofTemplate] of byTemplate) {
-    let page = 0;
-    for (const chunk of inChunks(ofTemplate, ROWS_PER_PAGE)) {
-      await trx('import_row_pages').insert({ import_id: importId, template, page, row_count: chunk.length, rows: JSON.stringify(chunk) });
-      page += 1;
+  // Each page is sent without waiting for the one before: the next is made into JSON while the database stores this one.
+  const writes = new WritesInFlight();
+  try {
+    for (const [template, ofTemplate] of byTemplate) {
+      let page = 0;
+      for (const chunk of inChunks(ofTemplate, ROWS_PER_PAGE)) {
+        writes.send(trx('import_row_pages').insert({ import_id: importId, template, page, row_count: chunk.length, rows: JSON.stringify(chunk) }));
+        await writes.letThemGo();
+        page += 1;
+      }
     }
+  } finally {
+    await writes.drain();
   }
 }
 
