@@ -109,6 +109,23 @@ export function inFileOrder(problems: readonly ImportProblem[], sheets: readonly
 
 const problemAt = (row: AnyConvertedRow, column: string, value: ImportProblem['value'], message: string): ImportProblem => ({ sheet: row.sheet, row: row.rowNumber, column, value, message });
 
+/** Memoizes a key of an object by the object: worked out once, looked up after. */
+function memoizedBy<T extends object>(keyOf: (value: T) => string): (value: T) => string {
+  const known = new WeakMap<T, string>();
+  return (value) => {
+    let key = known.get(value);
+    if (key === undefined) {
+      key = keyOf(value);
+      known.set(value, key);
+    }
+    return key;
+  };
+}
+
+/** The keys of a row's span and girder, worked out once per row body: the check looks each up many times, and each is JSON text to make. */
+const spanKeyOf = memoizedBy(spanKey);
+const girderKeyOf = memoizedBy(girderKey);
+
 /** The register as the upload touches it, read in a few queries. */
 interface Register {
   readonly structures: ReadonlyMap<string, StructureRow>;
@@ -197,12 +214,12 @@ function judgeStructure(row: ConvertedRow<'structures'>, register: Register, use
 }
 
 function judgeSpan(row: ConvertedRow<'spans'>, register: Register, inFile: FileFacts): Judged {
-  const stored = register.spans.get(spanKey(row.body));
+  const stored = register.spans.get(spanKeyOf(row.body));
   if (stored) return ok(sameAs(spanFields(stored), row.body.span) ? 'unchanged' : 'update');
   if (!register.structures.has(row.body.structureNumber) && !inFile.structures.has(row.body.structureNumber)) {
     return refused(problemAt(row, row.keyColumns, row.body.structureNumber, `structure ${row.body.structureNumber} is not in the register, and no valid structures row of this file adds it`));
   }
-  const girders = inFile.girdersPerSpan.get(spanKey(row.body)) ?? 0;
+  const girders = inFile.girdersPerSpan.get(spanKeyOf(row.body)) ?? 0;
   if (girders < MIN_GIRDERS_OF_NEW_SPAN) {
     return refused(problemAt(row, row.keyColumns, `${row.body.structureNumber} span ${row.body.spanIndex}`, `a new span needs its girders (at least two) in the same file; this file gives it ${girders}`));
   }
@@ -216,11 +233,11 @@ function judgeGirder(row: ConvertedRow<'girders'>, register: Register, inFile: F
   const { girderTypeName } = row.body;
   const girderTypeId = girderTypeName === null ? null : register.girderTypeIds.get(girderTypeName.toLowerCase());
   if (girderTypeId === undefined) return refused(problemAt(row, 'girder_type', girderTypeName, 'is not a girder type of the catalogue; add it there first, or give the section'));
-  const stored = register.girders.get(girderKey(row.body));
-  if (!stored && !register.spans.has(spanKey(row.body)) && !inFile.spans.has(spanKey(row.body))) {
+  const stored = register.girders.get(girderKeyOf(row.body));
+  if (!stored && !register.spans.has(spanKeyOf(row.body)) && !inFile.spans.has(spanKeyOf(row.body))) {
     return refused(problemAt(row, row.keyColumns, `${row.body.structureNumber} span ${row.body.spanIndex}`, 'this span is not in the register, and no valid spans row of this file adds it'));
   }
-  const fileStrandRows = inFile.strandRowRows.get(girderKey(row.body));
+  const fileStrandRows = inFile.strandRowRows.get(girderKeyOf(row.body));
   const record: GirderRecord = { ...row.body.record, girderTypeId, strandRows: fileStrandRows ? fileStrandRows.map((each) => each.body.strandRow) : storedStrandRows(register, stored) };
   const unrateable = ratingProblems(row, record, register, inFile);
   if (unrateable.length > 0) return refused(...unrateable);
@@ -243,7 +260,7 @@ function ratingProblems(row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows
   if (!span) return [];
   const type = record.girderTypeId === null ? undefined : register.girderTypes.get(record.girderTypeId);
   const fields = girderRatingProblems(record, type, span, row.body.girderNumber, skewAsFileLeavesIt(register, inFile, row.body.structureNumber), inFile.rateableGirders);
-  return fields.map((field) => girderProblemAt(row, field, inFile.strandRowRows.get(girderKey(row.body))));
+  return fields.map((field) => girderProblemAt(row, field, inFile.strandRowRows.get(girderKeyOf(row.body))));
 }
 
 /**
@@ -252,19 +269,19 @@ function ratingProblems(row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows
  * girders share it.
  */
 function spanAsFileLeavesIt(register: Register, inFile: FileFacts, key: { structureNumber: string; spanIndex: number }): StoredSpan | null {
-  const known = inFile.spansAsLeft.get(spanKey(key));
+  const known = inFile.spansAsLeft.get(spanKeyOf(key));
   if (known !== undefined) return known;
   const span = spanAfterFile(register, inFile, key);
-  inFile.spansAsLeft.set(spanKey(key), span);
+  inFile.spansAsLeft.set(spanKeyOf(key), span);
   return span;
 }
 
 function spanAfterFile(register: Register, inFile: FileFacts, key: { structureNumber: string; spanIndex: number }): StoredSpan | null {
-  const stored = register.spans.get(spanKey(key));
-  const fileRow = inFile.spanRows.get(spanKey(key));
+  const stored = register.spans.get(spanKeyOf(key));
+  const fileRow = inFile.spanRows.get(spanKeyOf(key));
   if (stored) return fileRow ? { ...stored, ...spanColumnsOf(fileRow.body.span) } : stored;
   if (!fileRow) return null;
-  return { ...(spanColumnsOf(newSpanFields(fileRow)) as Omit<StoredSpan, 'girder_count'>), girder_count: inFile.girdersPerSpan.get(spanKey(key)) ?? 0 };
+  return { ...(spanColumnsOf(newSpanFields(fileRow)) as Omit<StoredSpan, 'girder_count'>), girder_count: inFile.girdersPerSpan.get(spanKeyOf(key)) ?? 0 };
 }
 
 function skewAsFileLeavesIt(register: Register, inFile: FileFacts, structureNumber: string): number {
@@ -296,11 +313,11 @@ function columnAtPath(template: ImportTemplateName, path: readonly string[]) {
 }
 
 function judgeStrandRows(row: ConvertedRow<'strand-rows'>, register: Register, inFile: FileFacts): Judged {
-  if (inFile.girders.has(girderKey(row.body))) return ok('create');
-  const stored = register.girders.get(girderKey(row.body));
+  if (inFile.girders.has(girderKeyOf(row.body))) return ok('create');
+  const stored = register.girders.get(girderKeyOf(row.body));
   if (stored) {
     // Strand rows of a girder the file does not otherwise give replace the stored ones: judged with the stored girder, once, at its first strand row.
-    const fileStrandRows = inFile.strandRowRows.get(girderKey(row.body))!;
+    const fileStrandRows = inFile.strandRowRows.get(girderKeyOf(row.body))!;
     if (fileStrandRows[0] !== row) return ok('create');
     const unrateable = ratingProblems(row, { ...toGirderRecord(stored, []), strandRows: fileStrandRows.map((each) => each.body.strandRow) }, register, inFile);
     return unrateable.length > 0 ? refused(...unrateable) : ok('create');
@@ -342,7 +359,7 @@ const findingProblem = (row: ConvertedRow<'findings'>, field: string, message: s
 };
 
 /** Whether the file changes what a finding on the girder is checked against: the girder, its strand rows or its span. */
-const touchedByFile = (row: ConvertedRow<'findings'>, inFile: FileFacts) => inFile.girders.has(girderKey(row.body)) || inFile.strandRowIds.has(girderKey(row.body)) || inFile.spans.has(spanKey(row.body));
+const touchedByFile = (row: ConvertedRow<'findings'>, inFile: FileFacts) => inFile.girders.has(girderKeyOf(row.body)) || inFile.strandRowIds.has(girderKeyOf(row.body)) || inFile.spans.has(spanKeyOf(row.body));
 
 /**
  * The engine's judgement of each finding on a stored girder the file leaves as it is — strands the
@@ -354,12 +371,12 @@ async function misfitsOnStoredGirders(db: Db, rows: readonly AnyConvertedRow[], 
   const byGirder = new Map<number, ConvertedRow<'findings'>[]>();
   for (const row of rows) {
     if (row.template !== 'findings' || touchedByFile(row, inFile)) continue;
-    const girder = register.girders.get(girderKey(row.body));
+    const girder = register.girders.get(girderKeyOf(row.body));
     if (girder) addTo(byGirder, girder.id, row);
   }
   const misfits = new Map<AnyConvertedRow, ImportProblem[]>();
   for (const [girderId, findingRows] of byGirder) {
-    const spanLengthM = register.spans.get(spanKey(findingRows[0]!.body))!.length_m;
+    const spanLengthM = register.spans.get(spanKeyOf(findingRows[0]!.body))!.length_m;
     const fields = await findingsMisfitOnGirder(db, girderId, spanLengthM, findingRows.map((row) => row.body.finding));
     findingRows.forEach((row, index) => misfits.set(row, fields[index]!.map((field) => findingProblem(row, field.field, field.message))));
   }
@@ -374,7 +391,7 @@ async function misfitsOnStoredGirders(db: Db, rows: readonly AnyConvertedRow[], 
  */
 function judgeFinding(row: ConvertedRow<'findings'>, register: Register, user: SignedInUser, inFile: FileFacts, misfits: readonly ImportProblem[]): Judged {
   const { structureNumber, spanIndex, girderNumber, inspectedOn, finding } = row.body;
-  const key = girderKey(row.body);
+  const key = girderKeyOf(row.body);
   const stored = register.girders.get(key);
   if (!stored && !inFile.girders.has(key)) return refused(problemAt(row, row.keyColumns, `${structureNumber} span ${spanIndex} girder ${girderNumber}`, 'this girder is not in the register, and no valid girders row of this file adds it'));
   if (finding.strands && touchedByFile(row, inFile)) {
@@ -422,10 +439,10 @@ function rowsByKey(rows: readonly AnyConvertedRow[]): Pick<FileFacts, 'strandRow
   const spanRows = new Map<string, ConvertedRow<'spans'>>();
   const girdersPerSpan = new Map<string, number>();
   for (const row of rows) {
-    if (row.template === 'strand-rows') addTo(strandRowRows, girderKey(row.body), row);
+    if (row.template === 'strand-rows') addTo(strandRowRows, girderKeyOf(row.body), row);
     else if (row.template === 'structures') structureRows.set(row.body.structureNumber, row);
-    else if (row.template === 'spans') spanRows.set(spanKey(row.body), row);
-    else if (row.template === 'girders') girdersPerSpan.set(spanKey(row.body), (girdersPerSpan.get(spanKey(row.body)) ?? 0) + 1);
+    else if (row.template === 'spans') spanRows.set(spanKeyOf(row.body), row);
+    else if (row.template === 'girders') girdersPerSpan.set(spanKeyOf(row.body), (girdersPerSpan.get(spanKeyOf(row.body)) ?? 0) + 1);
   }
   const strandRowIds = new Map([...strandRowRows].map(([key, ofGirder]) => [key, ofGirder.map((each) => each.body.strandRow.id)]));
   return { strandRowIds, strandRowRows, structureRows, spanRows, girdersPerSpan };
@@ -440,8 +457,8 @@ function rowsByKey(rows: readonly AnyConvertedRow[]): Pick<FileFacts, 'strandRow
 export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: readonly AnyConvertedRow[]): Promise<UploadJudgement> {
   const register = await readRegister(db, user, rows);
   const structuresInFile = new Map(rows.flatMap((row) => (row.template === 'structures' ? [[row.body.structureNumber, row.body.district] as const] : [])));
-  const spansInFile = new Set(rows.flatMap((row) => (row.template === 'spans' ? [spanKey(row.body)] : [])));
-  const girdersInFile = new Set(rows.flatMap((row) => (row.template === 'girders' ? [girderKey(row.body)] : [])));
+  const spansInFile = new Set(rows.flatMap((row) => (row.template === 'spans' ? [spanKeyOf(row.body)] : [])));
+  const girdersInFile = new Set(rows.flatMap((row) => (row.template === 'girders' ? [girderKeyOf(row.body)] : [])));
   const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, ...rowsByKey(rows), rateableGirders: new Set(), spansAsLeft: new Map() };
   const misfits = await misfitsOnStoredGirders(db, rows, register, inFile);
   const counts: Partial<Record<ImportTemplateName, { rows: number; create: number; update: number; unchanged: number }>> = {};
@@ -460,7 +477,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
     problems.push(...judged.problems);
     if (judged.outcome === null) continue;
     if (row.template === 'strand-rows') {
-      addTo(strandRowsOfGirder, girderKey(row.body), row.body.strandRow);
+      addTo(strandRowsOfGirder, girderKeyOf(row.body), row.body.strandRow);
       continue;
     }
     count[judged.outcome] += 1;
