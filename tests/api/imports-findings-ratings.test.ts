@@ -130,7 +130,7 @@ describe('imports API: findings and prior ratings', () => {
     const startedAt = new Date();
     const checked = await checkAs(rater, readFileSync(path.join(SAMPLES, 'findings.csv')), 'findings.csv');
     expect(checked.problems).toEqual([]);
-    expect(checked.counts).toEqual({ findings: { rows: 6, create: 6, update: 0, unchanged: 0 } });
+    expect(checked.counts).toEqual({ findings: { rows: 6, create: 6, update: 0, unchanged: 0, refused: 0, fileRows: 6 } });
     expect(await testDb.db('inspections').count<{ count: string }[]>('* as count')).toEqual([{ count: '0' }]);
 
     const committed = await commitImport({ db: testDb.db, user: rater }, checked.id, checked.version);
@@ -187,13 +187,13 @@ describe('imports API: findings and prior ratings', () => {
     ]);
     expect(again.problems[0]!.message).toMatch(/has an inspection of 2026-11-24 on file \(accepted, Priya Halloran\)/);
     expect(again.problems[1]!.message).toMatch(/later inspection on file \(2026-11-24/);
-    expect(again.counts.findings).toEqual({ rows: 3, create: 1, update: 0, unchanged: 0 });
+    expect(again.counts.findings).toEqual({ rows: 3, create: 1, update: 0, unchanged: 0, refused: 2, fileRows: 3 });
   });
 
   it("files an inspector's imported findings as submitted, waiting for review, and adds them to the inspector's own draft of the day, which stays theirs to submit", async () => {
     const checked = await checkedBy('inspectorNorth', findingsCsv(spallAt('BV-N-0108', 1, 1, '2026-11-20'), spallAt('BV-N-0108', 1, 2, '2026-11-20')), 'findings.csv');
     expect(checked.problems).toEqual([]);
-    expect(checked.counts.findings).toEqual({ rows: 2, create: 2, update: 0, unchanged: 0 });
+    expect(checked.counts.findings).toEqual({ rows: 2, create: 2, update: 0, unchanged: 0, refused: 0, fileRows: 2 });
     expect(await commitBy('inspectorNorth', checked)).toMatchObject({ state: 'committed' });
     const [imported] = await call<{ id: number; state: string; inspectorName: string; findingCount: number }[]>('raterCentral', `/api/structures/${(await structureNamed('BV-N-0108')).id}/inspections`);
     expect(imported).toMatchObject({ state: 'submitted', inspectorName: 'Dana Whitcombe', findingCount: 2 });
@@ -206,7 +206,7 @@ describe('imports API: findings and prior ratings', () => {
     const draft = await call<InspectionDetail>('inspectorNorth', `/api/structures/${structure.id}/inspections`, { json: { inspectedOn: '2026-11-27', kind: 'routine' } });
     expect(draft.state).toBe('draft');
     const intoDraft = await checkedBy('inspectorNorth', findingsCsv(spallAt('BV-N-0115', 1, 1, '2026-11-27'), spallAt('BV-N-0115', 1, 3, '2026-11-27')), 'findings.csv');
-    expect(intoDraft.counts.findings).toEqual({ rows: 2, create: 2, update: 0, unchanged: 0 });
+    expect(intoDraft.counts.findings).toEqual({ rows: 2, create: 2, update: 0, unchanged: 0, refused: 0, fileRows: 2 });
     expect(await commitBy('inspectorNorth', intoDraft)).toMatchObject({ state: 'committed' });
     const filled = await call<InspectionDetail>('inspectorNorth', `/api/inspections/${draft.id}`);
     expect(filled).toMatchObject({ state: 'draft', findingCount: 2 });
@@ -215,7 +215,7 @@ describe('imports API: findings and prior ratings', () => {
 
     // The same key again is the same finding: one left as it is, one changed.
     const changed = await checkedBy('inspectorNorth', findingsCsv(spallAt('BV-N-0115', 1, 1, '2026-11-27'), spallAt('BV-N-0115', 1, 3, '2026-11-27', 'Grown since the morning.')), 'findings.csv');
-    expect(changed.counts.findings).toEqual({ rows: 2, create: 0, update: 1, unchanged: 1 });
+    expect(changed.counts.findings).toEqual({ rows: 2, create: 0, update: 1, unchanged: 1, refused: 0, fileRows: 2 });
     expect(await commitBy('inspectorNorth', changed)).toMatchObject({ state: 'committed' });
     const refilled = await call<InspectionDetail>('inspectorNorth', `/api/inspections/${draft.id}`);
     expect(refilled.findings.map((finding) => [finding.girderNumber, finding.notes, finding.version])).toEqual([
@@ -264,7 +264,7 @@ describe('imports API: findings and prior ratings', () => {
     sheet.spliceRows(3, 1);
     const clean = await checkAs(westRater, Buffer.from(await workbook.xlsx.writeBuffer()), 'west with findings.xlsx');
     expect(clean.problems).toEqual([]);
-    expect(clean.counts.findings).toEqual({ rows: 1, create: 1, update: 0, unchanged: 0 });
+    expect(clean.counts.findings).toEqual({ rows: 1, create: 1, update: 0, unchanged: 0, refused: 0, fileRows: 1 });
     expect(await commitImport({ db: testDb.db, user: westRater }, clean.id, clean.version)).toMatchObject({ state: 'committed' });
     const register = await call<FindingDetail[]>('raterCentral', `/api/girders/${await girderOf('BV-W-0101', 1, 1)}/findings`);
     expect(register).toEqual([expect.objectContaining({ kind: 'exposed-strands', registerState: 'open', strands: { rowId: 'r1', strands: [0] } })]);
@@ -273,7 +273,7 @@ describe('imports API: findings and prior ratings', () => {
   it("records the sample prior ratings: on the structure's list, as its rating-of-record figures until Spanledger approves a newer one, and as what a span's rating is compared with", async () => {
     const checked = await checkedBy('managerNetwork', readFileSync(path.join(SAMPLES, 'prior-ratings.csv')), 'prior-ratings.csv');
     expect(checked.problems).toEqual([]);
-    expect(checked.counts).toEqual({ 'prior-ratings': { rows: 6, create: 6, update: 0, unchanged: 0 } });
+    expect(checked.counts).toEqual({ 'prior-ratings': { rows: 6, create: 6, update: 0, unchanged: 0, refused: 0, fileRows: 6 } });
     expect(await commitBy('managerNetwork', checked)).toMatchObject({ state: 'committed' });
     expect(await testDb.db('audit_events').where({ action: 'prior-rating.recorded' }).count<{ count: string }[]>('* as count')).toEqual([{ count: '6' }]);
 
@@ -298,7 +298,7 @@ describe('imports API: findings and prior ratings', () => {
       ),
       'prior-ratings.csv',
     );
-    expect(older.counts['prior-ratings']).toEqual({ rows: 2, create: 1, update: 0, unchanged: 1 });
+    expect(older.counts['prior-ratings']).toEqual({ rows: 2, create: 1, update: 0, unchanged: 1, refused: 0, fileRows: 2 });
     expect(await commitBy('managerNetwork', older)).toMatchObject({ state: 'committed' });
     const history = await call<PriorRatingSummary[]>('raterCentral', `/api/structures/${legalOnly.id}/prior-ratings`);
     expect(history.map((rating) => [rating.approvedOn, rating.lowestLegalRf, rating.previous?.lowestLegalRf ?? null, rating.importId])).toEqual([
@@ -333,7 +333,7 @@ describe('imports API: findings and prior ratings', () => {
     const rater = await personWith('raterCentral', ['Central District']);
     const checked = await checkAs(rater, Buffer.from(await workbook.xlsx.writeBuffer()), 'central sheets.xlsx');
     expect(checked.problems).toEqual([]);
-    expect(checked.counts).toEqual({ findings: { rows: 1, create: 1, update: 0, unchanged: 0 }, 'prior-ratings': { rows: 1, create: 1, update: 0, unchanged: 0 } });
+    expect(checked.counts).toEqual({ findings: { rows: 1, create: 1, update: 0, unchanged: 0, refused: 0, fileRows: 1 }, 'prior-ratings': { rows: 1, create: 1, update: 0, unchanged: 0, refused: 0, fileRows: 1 } });
     const structure = await structureNamed('BV-C-0122');
     const counts = async () => ({
       inspections: Number((await testDb.db('inspections').where({ structure_id: structure.id }).count<{ count: string }[]>('* as count'))[0]!.count),

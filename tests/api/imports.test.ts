@@ -132,9 +132,9 @@ describe('imports API: checking an upload', () => {
 
     const clean = json<ImportDetail>(await upload('raterCentral', csvOf(structureRow({ structure_number: 'BV-C-0901' }), asStored, asStored.replace(`,${stored.name},`, `,${stored.name} (renamed),`).replace(stored.structureNumber, 'BV-C-0903')), 'structures.csv'));
     expect(clean.problems).toEqual([]);
-    expect(clean.counts).toEqual({ structures: { rows: 3, create: 2, update: 0, unchanged: 1 } });
+    expect(clean.counts).toEqual({ structures: { rows: 3, create: 2, update: 0, unchanged: 1, refused: 0, fileRows: 3 } });
     const renamed = json<ImportDetail>(await upload('raterCentral', csvOf(asStored.replace(`,${stored.name},`, `,${stored.name} (renamed),`)), 'structures.csv'));
-    expect(renamed.counts).toEqual({ structures: { rows: 1, create: 0, update: 1, unchanged: 0 } });
+    expect(renamed.counts).toEqual({ structures: { rows: 1, create: 0, update: 1, unchanged: 0, refused: 0, fileRows: 1 } });
 
     expect(await testDb.db('structures').whereIn('structure_number', ['BV-C-0901', 'BV-C-0902', 'BV-C-0903']).count<{ count: string }[]>('* as count')).toEqual([{ count: '0' }]);
     const history = json<ImportSummary[]>(await clients.get('managerNetwork')!.request('/api/imports'));
@@ -164,7 +164,8 @@ describe('imports API: checking an upload', () => {
     ]);
     expect(checked.problems[0]).toMatchObject({ value: 'lots' });
     expect(checked.problems[6]!.message).toMatch(/South District/);
-    expect(checked.counts).toEqual({ structures: { rows: 1, create: 0, update: 0, unchanged: 0 } });
+    // Six rows stop at their own cells; the seventh is judged against the register and refused there: all seven are refused.
+    expect(checked.counts).toEqual({ structures: { rows: 1, create: 0, update: 0, unchanged: 0, refused: 7, fileRows: 7 } });
 
     const report = await clients.get('raterCentral')!.request(`/api/imports/${checked.id}/problems.csv`);
     expect(report.status).toBe(200);
@@ -223,7 +224,7 @@ describe('imports API: checking an upload', () => {
     const bytes = Buffer.from(await workbook.xlsx.writeBuffer());
     const checked = json<ImportDetail>(await upload('raterCentral', bytes, 'central batch.xlsx'));
     expect(checked.fileKind).toBe('xlsx');
-    expect(checked.counts).toEqual({ structures: { rows: 1, create: 1, update: 0, unchanged: 0 } });
+    expect(checked.counts).toEqual({ structures: { rows: 1, create: 1, update: 0, unchanged: 0, refused: 0, fileRows: 1 } });
     expect(checked.problems).toEqual([expect.objectContaining({ sheet: 'bridges', message: expect.stringMatching(/named after its template/) })]);
   });
 

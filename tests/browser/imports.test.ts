@@ -47,7 +47,7 @@ const listedProblems = (page: Page) =>
     }),
   );
 
-/** The check's counts table: per template, rows, new, changed and unchanged as the page writes them. */
+/** The check's counts table: per template, rows, new, changed, unchanged and refused as the page writes them. */
 const listedCounts = (page: Page) =>
   page.getByTestId('import-count-row').evaluateAll((rows) =>
     Object.fromEntries(rows.map((row) => [row.getAttribute('data-template'), [...row.querySelectorAll('td')].slice(1).map((cell) => (cell.textContent ?? '').trim())])),
@@ -115,6 +115,10 @@ describe('imports journey', () => {
       const listed = await listedProblems(page);
       expect([...listed].sort(byPlace)).toEqual([...firstTry.problems].sort(byPlace));
       expect(await first.check.getByTestId('problems-heading').textContent()).toContain(`${firstTry.problems.length} problems`);
+      // Each row with a problem is counted refused once, in its template.
+      const countCells = Object.values(await listedCounts(page)) as string[][];
+      const refusedCounted = countCells.reduce((sum, cells) => sum + Number(cells[4]!.replace(/,/g, '')), 0);
+      expect(refusedCounted).toBe(new Set(firstTry.problems.map((problem) => `${problem.sheet}/${problem.row}`)).size);
       expect(await first.check.getByTestId('commit-blocked').textContent()).toMatch(/Fix the file and upload it again/);
       expect(await first.check.getByTestId('commit-import').count()).toBe(0);
       const messages = await page.getByTestId('import-problem-row').evaluateAll((rows) => rows.map((row) => (row.querySelectorAll('td')[4]?.textContent ?? '').trim()));
@@ -141,10 +145,10 @@ describe('imports journey', () => {
       expect(girderCount).toBe(structureNumbers.length * SPANS_PER_STRUCTURE * GIRDERS_PER_SPAN);
       // Strand rows replace a girder's rows as a whole, so they are counted once per girder.
       expect(await listedCounts(page)).toEqual({
-        structures: [asWritten(clean.structures.length), asWritten(clean.structures.length), '0', '0'],
-        spans: [asWritten(clean.spans.length), asWritten(clean.spans.length), '0', '0'],
-        girders: [asWritten(girderCount), asWritten(girderCount), '0', '0'],
-        'strand-rows': [asWritten(clean['strand-rows'].length), asWritten(girderCount), '0', '0'],
+        structures: [asWritten(clean.structures.length), asWritten(clean.structures.length), '0', '0', '0'],
+        spans: [asWritten(clean.spans.length), asWritten(clean.spans.length), '0', '0', '0'],
+        girders: [asWritten(girderCount), asWritten(girderCount), '0', '0', '0'],
+        'strand-rows': [asWritten(clean['strand-rows'].length), asWritten(girderCount), '0', '0', '0'],
       });
       await saveScreenshot(page, 'imports-4-clean-check');
 

@@ -67,9 +67,10 @@ const ACTION_OF: Readonly<Record<ImportTemplateName, Action>> = {
  * template; a CSV file holds the template given), then the rows against each other. Problems
  * are collected rather than thrown, so the person sees all of them at once.
  */
-export async function readAndConvert(filePath: string, csvTemplate: ImportTemplateName | null): Promise<{ rows: AnyConvertedRow[]; problems: ImportProblem[]; sheets: string[] }> {
+export async function readAndConvert(filePath: string, csvTemplate: ImportTemplateName | null): Promise<{ rows: AnyConvertedRow[]; problems: ImportProblem[]; sheets: string[]; fileRows: FileRows }> {
   const rows: AnyConvertedRow[] = [];
   const problems: ImportProblem[] = [];
+  const fileRows = new Map<ImportTemplateName, number>();
   const headersBySheet = new Map<string, { template: ImportTemplateName; headers: HeaderReading } | null>();
   for await (const row of readRows(filePath, csvTemplate ? { sheetName: csvTemplate } : {})) {
     // The template workbook's own description of its columns, left in a filled-in template.
@@ -88,14 +89,45 @@ export async function readAndConvert(filePath: string, csvTemplate: ImportTempla
       headersBySheet.set(row.sheet, sheet);
     }
     if (!sheet) continue;
+    fileRows.set(sheet.template, (fileRows.get(sheet.template) ?? 0) + 1);
     const converted = convertRow(sheet.template, sheet.headers, row);
     if (converted.ok) rows.push(converted.row as AnyConvertedRow);
     else problems.push(...converted.problems);
   }
   const acrossRows = checkUpload(rows);
   problems.push(...acrossRows.problems);
-  return { rows, problems, sheets: [...headersBySheet.keys()] };
+  return { rows, problems, sheets: [...headersBySheet.keys()], fileRows };
 }
+
+/** How many data rows of each template the file holds, whatever becomes of them. */
+export type FileRows = ReadonlyMap<ImportTemplateName, number>;
+
+/**
+ * The counts with each template's refused rows — those with a problem at a data row of one of its
+ * sheets, each row once — and its rows in the file (when the file was read to its end). A
+ * template whose every row was refused at its cells gets counts of its own. Problems of a header
+ * row, of a sheet as a whole or of the file are at no data row.
+ */
+export function withRefusedRows(counts: UploadJudgement['counts'], problems: readonly ImportProblem[], fileRows: FileRows): Partial<Record<ImportTemplateName, ImportCounts>> {
+  const refusedRows = new Map<ImportTemplateName, Set<string>>();
+  for (const problem of problems) {
+    const template = problem.row > HEADER_ROW ? templateNamed(problem.sheet) : null;
+    if (!template) continue;
+    const rows = refusedRows.get(template) ?? new Set<string>();
+    rows.add(`${problem.sheet}\u0000${problem.row}`);
+    refusedRows.set(template, rows);
+  }
+  const templates = IMPORT_TEMPLATE_NAMES.filter((template) => counts[template] || refusedRows.has(template));
+  const countsOf = (template: ImportTemplateName): ImportCounts => {
+    const inFile = fileRows.get(template);
+    return { ...(counts[template] ?? NO_ROWS_JUDGED), refused: refusedRows.get(template)?.size ?? 0, ...(inFile === undefined ? {} : { fileRows: inFile }) };
+  };
+  return Object.fromEntries(templates.map((template) => [template, countsOf(template)]));
+}
+
+/** A sheet's header row: its data rows come after it. */
+const HEADER_ROW = 1;
+const NO_ROWS_JUDGED: ImportCounts = { rows: 0, create: 0, update: 0, unchanged: 0 };
 
 /**
  * The problems as the person fixing the file goes through it: sheet by sheet in the file's order,

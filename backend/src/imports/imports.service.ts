@@ -5,7 +5,7 @@ import { AppError } from '../http/app-error';
 import type { BackgroundJobs } from '../jobs/background-jobs';
 import { toSignedInUser } from '../auth/auth.service';
 import { findUserById } from '../users/users.repository';
-import { inFileOrder, judgeAgainstRegister, readAndConvert, type UploadJudgement } from './import-check';
+import { inFileOrder, judgeAgainstRegister, readAndConvert, withRefusedRows, type UploadJudgement } from './import-check';
 import { contentSha256, type ReceivedImportFile } from './import-upload';
 import { writeRows, type CheckedRows, type CommitProgress } from './import-commit';
 import {
@@ -96,7 +96,7 @@ async function readFile(file: ReceivedImportFile, fileKind: 'csv' | 'xlsx') {
   } catch (error) {
     if (!(error instanceof ImportFileError)) throw error;
     if (error.sheet === undefined) throw unreadableFile(error);
-    return { rows: [], problems: [problemOf(error)], sheets: [] };
+    return { rows: [], problems: [problemOf(error)], sheets: [], fileRows: new Map() };
   }
 }
 
@@ -119,11 +119,12 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   const read = await readFile(file, fileKind);
   const judged = await judgeAgainstRegister(db, user, read.rows);
   const problems = inFileOrder([...read.problems, ...judged.problems], read.sheets);
+  const counts = withRefusedRows(judged.counts, problems, read.fileRows);
   const id = await withTransaction(db, async (trx) => {
-    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts: judged.counts, problems, ...keptForCommit(problems.length === 0 ? judged : null) }, user.id);
+    const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts, problems, ...keptForCommit(problems.length === 0 ? judged : null) }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
     if (problems.length === 0) await insertImportRowPages(trx, inserted, read.rows);
-    await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts: judged.counts, problemCount: problems.length } });
+    await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts, problemCount: problems.length } });
     return inserted;
   });
   return toDetail(db, (await findImportById(db, id))!, user);

@@ -363,7 +363,7 @@ export async function removeFinding({ db, user }: Writer, findingId: number): Pr
 }
 
 /** What an imported row does to the register: records something new, changes what is there, or finds it already so. */
-export type ImportOutcome = Exclude<keyof ImportCounts, 'rows'>;
+export type ImportOutcome = Exclude<keyof ImportCounts, 'rows' | 'refused' | 'fileRows'>;
 
 /** Where findings imported for a structure's inspection of a day go, judged from the structure's inspections on file. */
 export type ImportedFindingsPlace =

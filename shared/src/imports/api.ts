@@ -25,10 +25,19 @@ export const IMPORT_STATE_NAMES: Readonly<Record<ImportState, string>> = {
 
 /** How the rows of one template would land: new records, changed ones and ones already as the file says. */
 export interface ImportCounts {
+  /** Rows of the template that passed its columns' own checks and were judged against the register. */
   readonly rows: number;
   readonly create: number;
   readonly update: number;
   readonly unchanged: number;
+  /**
+   * Rows of the template with at least one problem at them — a cell its columns refuse, a rule of
+   * the file or of the register — none of which a commit could write. Absent in checks kept
+   * before it was counted.
+   */
+  readonly refused?: number;
+  /** Data rows of the template in the file, whatever became of them. Absent in checks kept before it was counted, and when reading stopped at a row. */
+  readonly fileRows?: number;
 }
 
 /** An import in the history. */

@@ -41,8 +41,8 @@ describe('ImportCheckComponent', () => {
     expect(textOf('import-state')).toBe('Checked');
     expect(textOf('import-meta')).toMatch(/^Uploaded Nov 2, 2026, .* by Priya Halloran$/);
     expect(await tableRows('import-check-summary')).toEqual([
-      { template: 'Structures', rows: '5', create: '3', update: '2', unchanged: '0' },
-      { template: 'Spans', rows: '8', create: '8', update: '0', unchanged: '0' },
+      { template: 'Structures', rows: '5', create: '3', update: '2', unchanged: '0', refused: '0' },
+      { template: 'Spans', rows: '8', create: '8', update: '0', unchanged: '0', refused: '0' },
     ]);
     expect([...fixture.nativeElement.querySelectorAll('[data-testid="import-count-row"]')].map((row: Element) => row.getAttribute('data-template'))).toEqual(['structures', 'spans']);
     expect(element('commit-ready')).not.toBeNull();
@@ -53,10 +53,17 @@ describe('ImportCheckComponent', () => {
     expect([commits, discards]).toEqual([1, 1]);
   });
 
+  it('shows a check kept before refused rows were counted with the rows it judged and a dash for refused', async () => {
+    await show(importDetail({ counts: { spans: { rows: 8, create: 8, update: 0, unchanged: 0 } } }));
+
+    expect(await tableRows('import-check-summary')).toEqual([{ template: 'Spans', rows: '8', create: '8', update: '0', unchanged: '0', refused: '—' }]);
+  });
+
   it('lists every problem by sheet, row, column and value, links the error report, and offers only Set aside', async () => {
     await show(importWithProblems());
 
     expect(textOf('problems-heading')).toBe('2 problems');
+    expect(await tableRows('import-check-summary')).toEqual([{ template: 'Girders', rows: '9', create: '5', update: '1', unchanged: '1', refused: '2' }]);
     expect(await tableRows('import-problems')).toEqual([
       { sheet: 'girders', row: '4', column: 'concrete_strength_mpa', value: '520', message: 'must be at most 150 MPa' },
       { sheet: 'girders', row: '7', column: '(whole row)', value: '—', message: 'structure WD-0107 has no span 3' },

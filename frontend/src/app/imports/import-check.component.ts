@@ -8,7 +8,7 @@ import { IMPORT_STATE_NAMES, type ImportDetail } from '@spanledger/shared';
 
 import { momentText } from '../ratings/rating-text';
 import { problemsReportUrl } from './imports.client';
-import { countText, countsRows, countsSummary, problemColumnText, problemCountText, problemValueText, type ImportStep } from './imports-text';
+import { countText, countsRows, countsSummary, problemColumnText, problemCountText, problemValueText, refusedText, type ImportStep } from './imports-text';
 
 /**
  * One import's check: what each template's rows would do, every problem by sheet, row, column and
@@ -32,7 +32,7 @@ export class ImportCheckComponent {
   readonly commit = output<void>();
   readonly discard = output<void>();
 
-  protected readonly countColumns = ['template', 'rows', 'create', 'update', 'unchanged'];
+  protected readonly countColumns = ['template', 'rows', 'create', 'update', 'unchanged', 'refused'];
   protected readonly problemColumns = ['sheet', 'row', 'column', 'value', 'message'];
   /** The network map, showing only the structures with a span due for re-rating. */
   protected readonly reratingDueFilter = { reratingDue: 'true' };
@@ -45,10 +45,12 @@ export class ImportCheckComponent {
   protected readonly counts = computed(() =>
     countsRows(this.detail().counts).map((row) => ({
       ...row,
-      rowsText: countText(row.rows),
+      // Every row of the template in the file; a check kept before they were counted has only those judged against the register.
+      rowsText: countText(row.fileRows ?? row.rows),
       createText: countText(row.create),
       updateText: countText(row.update),
       unchangedText: countText(row.unchanged),
+      refusedText: refusedText(row),
     })),
   );
   protected readonly problems = computed(() =>

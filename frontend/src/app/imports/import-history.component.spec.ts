@@ -14,12 +14,14 @@ jest.setTimeout(30_000);
 @Component({ template: '' })
 class BlankPage {}
 
-/** Newest first, as the server sends them: a failed commit, one set aside, one imported (uploaded by a data load), one still checked. */
+const CHECKED_BEFORE_REFUSED_ROWS_WERE_COUNTED = { structures: { rows: 5, create: 3, update: 2, unchanged: 0 }, spans: { rows: 8, create: 8, update: 0, unchanged: 0 } };
+
+/** Newest first, as the server sends them: a failed commit, one set aside, one imported (uploaded by a data load, checked before refused rows were counted), one still checked with refused rows. */
 const HISTORY: ImportSummary[] = [
-  importSummary({ id: 15, fileName: 'girders.csv', fileKind: 'csv', state: 'failed', counts: { girders: { rows: 9, create: 9, update: 0, unchanged: 0 } }, problemCount: 1, uploaded: { at: '2026-11-04T12:00:00.000Z', by: 'Greer Ashdown' } }),
+  importSummary({ id: 15, fileName: 'girders.csv', fileKind: 'csv', state: 'failed', counts: { girders: { rows: 9, create: 9, update: 0, unchanged: 0, refused: 0 } }, problemCount: 1, uploaded: { at: '2026-11-04T12:00:00.000Z', by: 'Greer Ashdown' } }),
   importSummary({ id: 14, state: 'discarded', counts: {}, uploaded: { at: '2026-11-03T12:00:00.000Z', by: 'Priya Halloran' } }),
-  importSummary({ id: 12, state: 'committed', uploaded: { at: '2026-11-02T12:00:00.000Z', by: null }, committed: { at: '2026-11-02T12:10:00.000Z', by: 'Priya Halloran' } }),
-  importSummary({ id: 11, fileName: 'findings.csv', fileKind: 'csv', counts: { findings: { rows: 1_500, create: 1_500, update: 0, unchanged: 0 } }, problemCount: 1_500, uploaded: { at: '2026-11-01T12:00:00.000Z', by: 'Tomasz Reyes' } }),
+  importSummary({ id: 12, state: 'committed', counts: CHECKED_BEFORE_REFUSED_ROWS_WERE_COUNTED, uploaded: { at: '2026-11-02T12:00:00.000Z', by: null }, committed: { at: '2026-11-02T12:10:00.000Z', by: 'Priya Halloran' } }),
+  importSummary({ id: 11, fileName: 'findings.csv', fileKind: 'csv', counts: { findings: { rows: 1_500, create: 700, update: 0, unchanged: 0, refused: 800 } }, problemCount: 1_500, uploaded: { at: '2026-11-01T12:00:00.000Z', by: 'Tomasz Reyes' } }),
 ];
 
 describe('ImportHistoryComponent', () => {
@@ -44,7 +46,7 @@ describe('ImportHistoryComponent', () => {
       ['girders.csv', 'Greer Ashdown', 'Not imported', 'Girders: 9 new, 0 changed, 0 unchanged', '1 problem CSV'],
       ['west-district.xlsx', 'Priya Halloran', 'Set aside', 'No rows', 'None'],
       ['west-district.xlsx', '—', 'Imported', 'Structures: 3 new, 2 changed, 0 unchanged; Spans: 8 new, 0 changed, 0 unchanged', 'None'],
-      ['findings.csv', 'Tomasz Reyes', 'Checked', 'Findings: 1,500 new, 0 changed, 0 unchanged', '1,500 problems CSV'],
+      ['findings.csv', 'Tomasz Reyes', 'Checked', 'Findings: 700 new, 0 changed, 0 unchanged, 800 refused', '1,500 problems CSV'],
     ]);
     // Midday UTC falls on the same day in any zone a test machine is likely to use.
     expect(rows[0]!['uploadedAt']).toMatch(/Nov 4, 2026/);

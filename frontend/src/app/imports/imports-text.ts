@@ -23,12 +23,16 @@ export function countsRows(counts: ImportSummary['counts']): CountsRow[] {
   });
 }
 
-/** "Structures: 3 new, 1 changed, 8 unchanged; Spans: 12 new, 0 changed, 0 unchanged". */
+/** "Structures: 3 new, 1 changed, 8 unchanged, 2 refused; Spans: 12 new, 0 changed, 0 unchanged"; refused rows are named when there are any. */
 export function countsSummary(counts: ImportSummary['counts']): string {
   const rows = countsRows(counts);
   if (rows.length === 0) return 'No rows';
-  return rows.map((row) => `${row.title}: ${countText(row.create)} new, ${countText(row.update)} changed, ${countText(row.unchanged)} unchanged`).join('; ');
+  const refused = (row: CountsRow) => (row.refused ? `, ${countText(row.refused)} refused` : '');
+  return rows.map((row) => `${row.title}: ${countText(row.create)} new, ${countText(row.update)} changed, ${countText(row.unchanged)} unchanged${refused(row)}`).join('; ');
 }
+
+/** A template's refused rows as the check's table shows them; a check kept before they were counted shows a dash. */
+export const refusedText = (row: CountsRow): string => (row.refused === undefined ? '—' : countText(row.refused));
 
 /** A cell's value as the file held it; an empty cell shows as a dash. */
 export function problemValueText(value: ImportProblem['value']): string {

@@ -16,7 +16,7 @@ export function importSummary(overrides: Partial<ImportSummary> = {}): ImportSum
     byteSize: 48_213,
     contentSha256: '3f1c0b6e9a1d4e7c8b2a5f6d0e9c8b7a6f5e4d3c2b1a0f9e8d7c6b5a4f3e2d1c',
     state: 'checked',
-    counts: { structures: { rows: 5, create: 3, update: 2, unchanged: 0 }, spans: { rows: 8, create: 8, update: 0, unchanged: 0 } },
+    counts: { structures: { rows: 5, create: 3, update: 2, unchanged: 0, refused: 0, fileRows: 5 }, spans: { rows: 8, create: 8, update: 0, unchanged: 0, refused: 0, fileRows: 8 } },
     problemCount: 0,
     uploaded: { at: '2026-11-02T12:00:00.000Z', by: RATER.displayName },
     committed: null,
@@ -49,7 +49,8 @@ export function importWithProblems(overrides: Partial<ImportDetail> = {}): Impor
     id: 13,
     fileName: 'girders.csv',
     fileKind: 'csv',
-    counts: { girders: { rows: 9, create: 6, update: 1, unchanged: 2 } },
+    // Nine rows: one refused at its cell, eight judged against the register, one of them refused there.
+    counts: { girders: { rows: 8, create: 5, update: 1, unchanged: 1, refused: 2, fileRows: 9 } },
     problemCount: GIRDER_PROBLEMS.length,
     problems: GIRDER_PROBLEMS,
     allowed: { commit: false, discard: true },
