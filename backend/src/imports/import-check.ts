@@ -2,7 +2,6 @@ import { isDeepStrictEqual } from 'node:util';
 import {
   COLUMNS_SHEET_NAME,
   IMPORT_TEMPLATE_NAMES,
-  templateNamed,
   IMPORT_TEMPLATES,
   canInDistrict,
   checkUpload,
@@ -10,6 +9,7 @@ import {
   girderKey,
   readHeaders,
   spanKey,
+  templateNamed,
   type Action,
   type AnyConvertedRow,
   type ConvertedRow,
