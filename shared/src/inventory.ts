@@ -89,6 +89,8 @@ export interface RatingOfRecordSummary {
   readonly lowestLegalRatingFactor: number | null;
   readonly designInventoryRatingFactor: number | null;
   readonly approvedAt: string | null;
+  /** 'YYYY-MM-DD' when the figures are those of a rating on file from before Spanledger, approved on that day (`approvedAt` is its start in UTC); null when Spanledger approved them. */
+  readonly approvedOn: string | null;
 }
 
 export interface ConditionRatings {

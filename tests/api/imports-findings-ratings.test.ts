@@ -284,7 +284,7 @@ describe('imports API: findings and prior ratings', () => {
       expect.objectContaining({ spanIndex: 2, lowestLegalRf: 1.19, lowestInventoryRf: 0.93, approvedOn: '2018-06-07', sourceNote: expect.stringMatching(/^Span 2 of the June 2018 rating report/) }),
     ]);
     // The structure's figures are the lowest of its newest prior ratings: what the map colours it by.
-    expect((await call<StructureDetail>('inspectorSouth', `/api/structures/${south.id}`)).ratingOfRecord).toEqual({ lowestLegalRatingFactor: 1.16, designInventoryRatingFactor: 0.91, approvedAt: '2018-06-07T00:00:00.000Z' });
+    expect((await call<StructureDetail>('inspectorSouth', `/api/structures/${south.id}`)).ratingOfRecord).toEqual({ lowestLegalRatingFactor: 1.16, designInventoryRatingFactor: 0.91, approvedAt: '2018-06-07T00:00:00.000Z', approvedOn: '2018-06-07' });
     const legalOnly = await structureNamed('BV-C-0171');
     const onMap = await call<StructureFeatureCollection>('raterCentral', '/api/structures?search=BV-C-0171');
     expect(onMap.features.map((feature) => [feature.properties.legalRatingFactor, feature.properties.designInventoryRatingFactor])).toEqual([[1.22, null]]);
@@ -318,7 +318,7 @@ describe('imports API: findings and prior ratings', () => {
     expect(approved.state).toBe('approved');
     // Approved now, it is newer than every prior rating: the structure's figures are Spanledger's.
     const figures = (await call<StructureDetail>('raterCentral', `/api/structures/${(await structureNamed('BV-C-0101')).id}`)).ratingOfRecord;
-    expect(figures).toEqual({ lowestLegalRatingFactor: approved.lowestLegalRf, designInventoryRatingFactor: approved.lowestInventoryRf, approvedAt: approved.reviewed!.at });
+    expect(figures).toEqual({ lowestLegalRatingFactor: approved.lowestLegalRf, designInventoryRatingFactor: approved.lowestInventoryRf, approvedAt: approved.reviewed!.at, approvedOn: null });
   }, 60_000);
 
   it('leaves no inspection, finding or prior rating behind when a fault stops the commit of a workbook holding both', async () => {

@@ -189,16 +189,17 @@ export async function supersedeRatingOfRecord(trx: Transaction, spanId: number, 
  * factors over its spans' ratings of record and the latest approval — or, when Spanledger has
  * approved none, or none since the structure's newest prior rating on file, the lowest of the
  * prior ratings of that newest day (whole structure and spans alike), so an imported network is
- * coloured from the first day. Null when neither exists.
+ * coloured from the first day (and its day kept, `rating_of_record_approved_on`). Null when
+ * neither exists.
  */
 export async function refreshStructureRatingFigures(trx: Transaction, structureId: number): Promise<void> {
   await trx.raw(
     `with spanledger as (
-            select min(r.lowest_legal_rf) as legal, min(r.lowest_inventory_rf) as inventory, max(r.reviewed_at) as approved_at
+            select min(r.lowest_legal_rf) as legal, min(r.lowest_inventory_rf) as inventory, max(r.reviewed_at) as approved_at, null::date as approved_on
               from ratings r join spans sp on sp.id = r.span_id
              where sp.structure_id = ? and r.state = 'approved'),
           prior as (
-            select min(pr.lowest_legal_rf) as legal, min(pr.design_inventory_rf) as inventory, (pr.approved_on::timestamp at time zone 'UTC') as approved_at
+            select min(pr.lowest_legal_rf) as legal, min(pr.design_inventory_rf) as inventory, (pr.approved_on::timestamp at time zone 'UTC') as approved_at, pr.approved_on
               from prior_ratings pr
              where pr.structure_id = ? and pr.approved_on = (select max(approved_on) from prior_ratings where structure_id = ?)
              group by pr.approved_on),
@@ -207,7 +208,8 @@ export async function refreshStructureRatingFigures(trx: Transaction, structureI
             union all
             select * from prior where (select approved_at from spanledger) is null or (select approved_at from spanledger) < prior.approved_at)
      update structures as s
-        set rating_of_record_legal_rf = figures.legal, rating_of_record_inventory_rf = figures.inventory, rating_of_record_approved_at = figures.approved_at
+        set rating_of_record_legal_rf = figures.legal, rating_of_record_inventory_rf = figures.inventory, rating_of_record_approved_at = figures.approved_at,
+            rating_of_record_approved_on = figures.approved_on
        from (select 1) as one left join figures on true
       where s.id = ?`,
     [structureId, structureId, structureId, structureId],

@@ -29,6 +29,8 @@ export interface StructureRow {
   rating_of_record_inventory_rf: number | null;
   rerating_due: boolean;
   rating_of_record_approved_at: Date | null;
+  /** 'YYYY-MM-DD' when the figures are a prior rating's. */
+  rating_of_record_approved_on: string | null;
   version: number;
   created_at: Date;
   updated_at: Date;
@@ -104,6 +106,7 @@ function selectStructureColumns(db: Db, query: Knex.QueryBuilder): Knex.QueryBui
     's.rating_of_record_legal_rf',
     's.rating_of_record_inventory_rf',
     's.rating_of_record_approved_at',
+    db.raw("to_char(s.rating_of_record_approved_on, 'YYYY-MM-DD') as rating_of_record_approved_on"),
     db.raw(`${RERATING_DUE} as rerating_due`),
     's.version',
     's.created_at',

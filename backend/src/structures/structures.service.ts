@@ -153,6 +153,7 @@ async function toDetail(db: Database, row: StructureRow): Promise<StructureDetai
             lowestLegalRatingFactor: row.rating_of_record_legal_rf,
             designInventoryRatingFactor: row.rating_of_record_inventory_rf,
             approvedAt: row.rating_of_record_approved_at.toISOString(),
+            approvedOn: row.rating_of_record_approved_on,
           },
     reratingDue: row.rerating_due,
     spans: spans.map((span) => ({ id: span.id, spanIndex: span.span_index, lengthM: span.length_m, girderCount: span.girder_count, girderSpacingMm: span.girder_spacing_mm })),

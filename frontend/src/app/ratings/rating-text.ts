@@ -49,11 +49,14 @@ export function whatIfText(whatIf: HypotheticalDamage, girderNumber: number | un
 /** A rating on file from before Spanledger was approved on a day, not at a moment: read in UTC so no time zone moves it. */
 const PRIOR_DAY = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeZone: 'UTC' });
 
+/** A day ('YYYY-MM-DD') as people read it, "Jun 7, 2018", the same day wherever the reader is. */
+export const dayText = (isoDate: string): string => PRIOR_DAY.format(new Date(`${isoDate}T00:00:00Z`));
+
 /** What a rating is compared with: Spanledger's rating of record, a rating on file from before Spanledger, or none. */
 export function previousRecordText(before: ComparedRatingOfRecord | null): string {
   if (!before) return 'First rating of this span: no rating of record to compare with';
   if (before.priorRating) {
-    return `Change from the rating on file from before Spanledger (approved ${PRIOR_DAY.format(new Date(`${before.priorRating.approvedOn}T00:00:00Z`))}; ${before.priorRating.sourceNote})`;
+    return `Change from the rating on file from before Spanledger (approved ${dayText(before.priorRating.approvedOn)}; ${before.priorRating.sourceNote})`;
   }
   return `Change from the rating of record (rating ${before.id}, approved ${new Date(before.approvedAt).toLocaleDateString('en', { dateStyle: 'medium' })})`;
 }

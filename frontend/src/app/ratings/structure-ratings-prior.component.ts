@@ -4,12 +4,8 @@ import { MatTableModule } from '@angular/material/table';
 import { RESULT_CAUTION, type PriorRatingSummary } from '@spanledger/shared';
 
 import { loadedList } from '../server-errors/loaded-list';
-import { ratingChangeText, ratingFactorText } from './rating-text';
+import { dayText, ratingChangeText, ratingFactorText } from './rating-text';
 import { PriorRatingsClient } from './structure-ratings-prior.client';
-
-/** A prior rating's day of approval is a date, not a moment: read in UTC so no time zone moves it. */
-const DAY_FORMAT = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeZone: 'UTC' });
-const dayText = (isoDate: string) => DAY_FORMAT.format(new Date(`${isoDate}T00:00:00Z`));
 
 /**
  * The ratings a structure had on file before Spanledger, newest first: the day each was

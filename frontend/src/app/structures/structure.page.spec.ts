@@ -242,7 +242,7 @@ describe('StructurePage', () => {
   });
 
   it('shows a rating of record with the caution, and the rating records of its spans', async () => {
-    await openPage(RATER, structureDetail({ ratingOfRecord: { lowestLegalRatingFactor: 0.94, designInventoryRatingFactor: 1.12, approvedAt: '2024-07-01T10:00:00.000Z' } }));
+    await openPage(RATER, structureDetail({ ratingOfRecord: { lowestLegalRatingFactor: 0.94, designInventoryRatingFactor: 1.12, approvedAt: '2024-07-01T10:00:00.000Z', approvedOn: null } }));
 
     await (await loader.getHarness(MatTabGroupHarness)).selectTab({ label: 'Ratings' });
     const stamp = { at: '2024-06-28T09:00:00.000Z', by: 'Priya Halloran' };
@@ -261,7 +261,18 @@ describe('StructurePage', () => {
 
     expect(fact('legalRatingFactor')).toBe('0.94');
     expect(fact('designInventoryRatingFactor')).toBe('1.12');
+    expect(fact('approvedAt')).toMatch(/^Jul 1, 2024, /);
     expect(textOf('result-caution')).toContain('licensed engineer');
+  });
+
+  it('shows the day of a rating of record on file from before Spanledger, the same day in every time zone', async () => {
+    // Midnight UTC of the day, as the server keeps it for ordering: the day before, read as a moment west of Greenwich.
+    await openPage(RATER, structureDetail({ ratingOfRecord: { lowestLegalRatingFactor: 1.16, designInventoryRatingFactor: 0.91, approvedAt: '2018-06-07T00:00:00.000Z', approvedOn: '2018-06-07' } }));
+    await (await loader.getHarness(MatTabGroupHarness)).selectTab({ label: 'Ratings' });
+    server.expectOne('api/structures/41/ratings').flush([]);
+    await fixture.whenStable();
+
+    expect(fact('approvedAt')).toBe('Jun 7, 2018 (on file from before Spanledger)');
   });
 
   it('offers no edit buttons to an inspector', async () => {

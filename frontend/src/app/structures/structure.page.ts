@@ -7,11 +7,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTabsModule } from '@angular/material/tabs';
 import { ActivatedRoute } from '@angular/router';
-import { RESULT_CAUTION, STRUCTURE_STATUS_NAMES, canInDistrict, type SpanDetail, type StructureDetail } from '@spanledger/shared';
+import { RESULT_CAUTION, STRUCTURE_STATUS_NAMES, canInDistrict, type RatingOfRecordSummary, type SpanDetail, type StructureDetail } from '@spanledger/shared';
 import { Observable, Subject, catchError, map, of, switchMap } from 'rxjs';
 
 import { StructureInspectionsComponent } from '../inspections/structure-inspections.component';
-import { ratingFactorText } from '../ratings/rating-text';
+import { dayText, ratingFactorText } from '../ratings/rating-text';
 import { StructureRatingsComponent } from '../ratings/structure-ratings.component';
 import { describeServerError, serverErrorReport } from '../server-errors/server-error';
 import { SessionStore } from '../session/session.store';
@@ -35,6 +35,12 @@ interface Fact {
 /** Dates without a time (condition ratings) are calendar days: read them in UTC so no time zone moves them. */
 const DAY_FORMAT = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeZone: 'UTC' });
 const MOMENT_FORMAT = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeStyle: 'short' });
+
+/** When the rating of record was approved: the moment Spanledger approved it, or the day of a rating on file from before Spanledger. */
+function approvalText({ approvedAt, approvedOn }: RatingOfRecordSummary): string {
+  if (approvedOn) return `${dayText(approvedOn)} (on file from before Spanledger)`;
+  return approvedAt === null ? '—' : MOMENT_FORMAT.format(new Date(approvedAt));
+}
 const COUNT_FORMAT = new Intl.NumberFormat('en');
 
 /**
@@ -124,7 +130,7 @@ export class StructurePage {
     return [
       { key: 'legalRatingFactor', label: 'Lowest legal-load rating factor', value: ratingFactorText(rating.lowestLegalRatingFactor) },
       { key: 'designInventoryRatingFactor', label: 'Design-load inventory rating factor', value: ratingFactorText(rating.designInventoryRatingFactor) },
-      { key: 'approvedAt', label: 'Approved', value: rating.approvedAt === null ? '—' : MOMENT_FORMAT.format(new Date(rating.approvedAt)) },
+      { key: 'approvedAt', label: 'Approved', value: approvalText(rating) },
     ];
   });
 
