@@ -183,6 +183,8 @@ describe('imports journey', () => {
       const historyRow = page.locator(`[data-testid="import-history-row"][data-import-id="${fixed.id}"]`);
       await eventually(() => historyRow.getAttribute('data-state'), (state) => state === 'committed', 'the history to show the import committed');
       expect(await page.locator(`[data-testid="import-history-row"][data-import-id="${first.id}"]`).getAttribute('data-state')).toBe('checked');
+      // Its number first, as the check and a refusal of the same bytes name it.
+      expect((await historyRow.locator('td').first().textContent())?.trim()).toBe(String(fixed.id));
       await saveScreenshot(page, 'imports-6-committed');
 
       // On the network map: the new structures' spans are due for re-rating; a search finds them all.

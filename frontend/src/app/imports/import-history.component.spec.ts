@@ -42,11 +42,11 @@ describe('ImportHistoryComponent', () => {
 
     const table = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatTableHarness);
     const rows = await Promise.all((await table.getRows()).map((row) => row.getCellTextByColumnName()));
-    expect(rows.map(({ file, uploadedBy, state, counts, problems }) => [file, uploadedBy, state, counts, problems])).toEqual([
-      ['girders.csv', 'Greer Ashdown', 'Not imported', 'Girders: 9 new, 0 changed, 0 unchanged', '1 problem CSV'],
-      ['west-district.xlsx', 'Priya Halloran', 'Set aside', 'No rows', 'None'],
-      ['west-district.xlsx', '—', 'Imported', 'Structures: 3 new, 2 changed, 0 unchanged; Spans: 8 new, 0 changed, 0 unchanged', 'None'],
-      ['findings.csv', 'Tomasz Reyes', 'Checked', 'Findings: 700 new, 0 changed, 0 unchanged, 800 refused', '1,500 problems CSV'],
+    expect(rows.map(({ number, file, uploadedBy, state, counts, problems }) => [number, file, uploadedBy, state, counts, problems])).toEqual([
+      ['15', 'girders.csv', 'Greer Ashdown', 'Not imported', 'Girders: 9 new, 0 changed, 0 unchanged', '1 problem CSV'],
+      ['14', 'west-district.xlsx', 'Priya Halloran', 'Set aside', 'No rows', 'None'],
+      ['12', 'west-district.xlsx', '—', 'Imported', 'Structures: 3 new, 2 changed, 0 unchanged; Spans: 8 new, 0 changed, 0 unchanged', 'None'],
+      ['11', 'findings.csv', 'Tomasz Reyes', 'Checked', 'Findings: 700 new, 0 changed, 0 unchanged, 800 refused', '1,500 problems CSV'],
     ]);
     // Midday UTC falls on the same day in any zone a test machine is likely to use.
     expect(rows[0]!['uploadedAt']).toMatch(/Nov 4, 2026/);

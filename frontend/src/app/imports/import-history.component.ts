@@ -20,7 +20,8 @@ export class ImportHistoryComponent {
   /** The import open above the history, marked in its row. */
   readonly openedId = input<number | null>(null);
 
-  protected readonly columns = ['file', 'uploadedBy', 'uploadedAt', 'state', 'counts', 'problems', 'open'];
+  /** The import's number first: the check, a refusal of the same bytes and the history's entries all name an import by it. */
+  protected readonly columns = ['number', 'file', 'uploadedBy', 'uploadedAt', 'state', 'counts', 'problems', 'open'];
 
   protected readonly rows = computed(() =>
     this.imports().map((each) => ({
