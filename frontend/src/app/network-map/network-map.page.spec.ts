@@ -7,12 +7,14 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatChipListboxHarness } from '@angular/material/chips/testing';
 import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 import { By } from '@angular/platform-browser';
 import { Router, provideRouter } from '@angular/router';
 import { BoundingBox, MAX_STRUCTURES_PER_REQUEST, RatingBasis, StructureFeature } from '@spanledger/shared';
 
+import { SEARCH_DEBOUNCE_MS } from './map-filters.component';
 import { NetworkMapPage, VIEW_CHANGE_DEBOUNCE_MS } from './network-map.page';
 import { structureAnswer, structureFeature } from './structure-features.testing';
 import { StructureListHarness } from './structure-list.testing';
@@ -250,6 +252,36 @@ describe('NetworkMapPage', () => {
     expect(await listedNumbers()).toEqual(['EV-0002']);
     expect(mapIds()).toEqual([3]);
     expect(text('structure-count')).toBe('1 of 3 structures in view');
+  });
+
+  it('frames the map around what a search finds in the whole network, beyond the view, and leaves the view be when the search is cleared', async () => {
+    await openPage();
+    networkRequest().flush(structureAnswer(network));
+    map().viewChanged.emit(NEARBY_VIEW);
+    await afterDebounce();
+    viewRequest().flush(structureAnswer([network[1]!, network[2]!]));
+
+    const search = await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="filter-search"]' }));
+    await search.setValue('NP-0003');
+    await new Promise((resolve) => setTimeout(resolve, SEARCH_DEBOUNCE_MS + 50));
+    await fixture.whenStable();
+
+    // Asked twice: within the view for the list, and across the network for the map to frame.
+    const inView = viewRequest();
+    expect(inView.request.params.get('search')).toBe('NP-0003');
+    inView.flush(structureAnswer([]));
+    const acrossNetwork = server.expectOne((r) => r.url === 'api/structures' && !r.params.has('bbox') && r.params.get('search') === 'NP-0003');
+    acrossNetwork.flush(structureAnswer([network[0]!]));
+    await fixture.whenStable();
+    expect(map().fitTo()).toEqual([network[0]]);
+
+    await search.setValue('');
+    await new Promise((resolve) => setTimeout(resolve, SEARCH_DEBOUNCE_MS + 50));
+    await fixture.whenStable();
+    viewRequest().flush(structureAnswer([network[1]!, network[2]!]));
+    server.expectNone((r) => r.url === 'api/structures' && !r.params.has('bbox'));
+    await fixture.whenStable();
+    expect(map().fitTo()).toEqual([network[0]]);
   });
 
   it('opens a shared link with its filters: the network once unfiltered to frame the map, then only what matches', async () => {

@@ -8,6 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, Router } from '@angular/router';
 import { BoundingBox, RatingBasis, StructureFeatureCollection, StructureSummary } from '@spanledger/shared';
 import {
+  EMPTY,
   Observable,
   Subject,
   catchError,
@@ -15,6 +16,7 @@ import {
   concat,
   debounceTime,
   distinctUntilChanged,
+  filter,
   map,
   of,
   scan,
@@ -119,7 +121,30 @@ export class NetworkMapPage {
 
   protected readonly loading = computed(() => this.state().loading);
   protected readonly errorMessage = computed(() => this.state().errorMessage);
-  protected readonly networkStructures = computed(() => this.state().network?.features ?? null);
+  private readonly networkStructures = computed(() => this.state().network?.features ?? null);
+
+  /**
+   * The structures of the whole network that a new search finds: what is searched for may lie
+   * outside the view, so the map frames itself around them, and the list then shows them in view.
+   * A search that finds nothing, or clearing it, leaves the view where it is.
+   */
+  private readonly searchFound = toSignal(
+    this.filters$.pipe(
+      distinctUntilChanged((a, b) => a.search.trim() === b.search.trim()),
+      filter((filters) => filters.search.trim() !== ''),
+      switchMap((filters) =>
+        this.structuresClient.fetchMatching(filters, null).pipe(
+          map((answer) => answer.features),
+          // The list says why nothing came: its own question is the same one, within the view.
+          catchError(() => EMPTY),
+        ),
+      ),
+      filter((found) => found.length > 0),
+    ),
+    { initialValue: null },
+  );
+  /** What the map frames itself around: the network once it arrives, then each search's finds. */
+  protected readonly framedStructures = computed(() => this.searchFound() ?? this.networkStructures());
   protected readonly networkTotal = computed(() => this.state().network?.total ?? null);
   protected readonly structures = computed(() => this.state().answer?.features ?? []);
   protected readonly summaries = computed(() => this.structures().map((structure) => structure.properties));
