@@ -5,8 +5,10 @@ import ExcelJS from 'exceljs';
 import type {
   AlertItem,
   FindingDetail,
+  HistoryEvent,
   ImportDetail,
   InspectionDetail,
+  Page,
   PriorRatingSummary,
   RatingDetail,
   RatingSetup,
@@ -178,6 +180,15 @@ describe('imports API: findings and prior ratings', () => {
     const history = await testDb.db('audit_events').whereIn('action', ['inspection.imported', 'finding.recorded']).select('action');
     expect(history.filter((event) => event.action === 'inspection.imported')).toHaveLength(3);
     expect(history.filter((event) => event.action === 'finding.recorded')).toHaveLength(6);
+    // And where people read it: the structure's history names the inspection and each finding by where it is.
+    const withFindings = await structureNamed('BV-C-0143');
+    const read = await call<Page<HistoryEvent>>('inspectorSouth', `/api/structures/${withFindings.id}/history`);
+    expect(read.items.filter((event) => event.entityType === 'inspection' || event.entityType === 'finding').map((event) => `${event.subject} ${event.action}`).sort()).toEqual([
+      'Finding on span 1, girder 1 (inspection of 2026-11-24) finding.recorded',
+      'Finding on span 1, girder 1 (inspection of 2026-11-24) finding.recorded',
+      'Finding on span 2, girder 3 (inspection of 2026-11-24) finding.recorded',
+      'Inspection of 2026-11-24 inspection.imported',
+    ]);
 
     // Findings for a day on file, or before a later inspection on file, would stand beside what that inspection recorded.
     const again = await checkAs(rater, findingsCsv(spallAt('BV-C-0143', 1, 2, '2026-11-24'), spallAt('BV-C-0143', 1, 2, '2026-10-01'), spallAt('BV-N-0157', 1, 1, '2026-11-27')), 'findings.csv');
@@ -283,6 +294,8 @@ describe('imports API: findings and prior ratings', () => {
       expect.objectContaining({ spanIndex: 1, lowestLegalRf: 1.16, lowestInventoryRf: 0.91, approvedOn: '2018-06-07', importId: checked.id, previous: null, created: expect.objectContaining({ by: 'Greer Ashdown' }) }),
       expect.objectContaining({ spanIndex: 2, lowestLegalRf: 1.19, lowestInventoryRf: 0.93, approvedOn: '2018-06-07', sourceNote: expect.stringMatching(/^Span 2 of the June 2018 rating report/) }),
     ]);
+    const southHistory = await call<Page<HistoryEvent>>('inspectorSouth', `/api/structures/${south.id}/history`);
+    expect(southHistory.items.filter((event) => event.entityType === 'prior-rating').map((event) => event.subject).sort()).toEqual(['Rating on file of 2018-06-07 (span 1)', 'Rating on file of 2018-06-07 (span 2)']);
     // The structure's figures are the lowest of its newest prior ratings: what the map colours it by.
     expect((await call<StructureDetail>('inspectorSouth', `/api/structures/${south.id}`)).ratingOfRecord).toEqual({ lowestLegalRatingFactor: 1.16, designInventoryRatingFactor: 0.91, approvedAt: '2018-06-07T00:00:00.000Z', approvedOn: '2018-06-07' });
     const legalOnly = await structureNamed('BV-C-0171');

@@ -1,4 +1,4 @@
-import { parseRateFile, rateGirderLine, type GirderDetail, type InspectionDetail, type RatingDetail, type RatingSetup, type RatingSummary, type StructureDetail, type StructureFeatureCollection } from '../../shared/src';
+import { parseRateFile, rateGirderLine, type GirderDetail, type HistoryEvent, type InspectionDetail, type Page, type RatingDetail, type RatingSetup, type RatingSummary, type StructureDetail, type StructureFeatureCollection } from '../../shared/src';
 import { syncReferenceLibrary } from '../../backend/src/library/reference-library';
 import { seed as seedDemoConditions } from '../../seeds/demo-conditions';
 import { seed as seedDemoInventory } from '../../seeds/demo-inventory';
@@ -203,6 +203,11 @@ describe('ratings API', () => {
     expect(approved.status).toBe(200);
     expect(approved.body.state).toBe('approved');
     expect(approved.body.reviewComments.map((comment) => comment.step)).toEqual(['submitted', 'returned', 'submitted', 'approved']);
+    // Each step is in the structure's history, named by the rating and its span.
+    const structureHistory = (await call<Page<HistoryEvent>>('inspectorSouth', `/api/structures/${structure.id}/history?limit=100`)).body;
+    const ratingSteps = structureHistory.items.filter((event) => event.entityType === 'rating' && event.entityId === String(draft.id));
+    expect(ratingSteps.map((event) => event.action).reverse()).toEqual(['rating.run', 'rating.submitted', 'rating.returned', 'rating.run-again', 'rating.submitted', 'rating.approved']);
+    expect(new Set(ratingSteps.map((event) => event.subject))).toEqual(new Set([`Rating ${draft.id} of span ${span.spanIndex}`]));
 
     const figures = await testDb.db('structures').where({ id: structure.id }).first('rating_of_record_legal_rf', 'rating_of_record_inventory_rf', 'rating_of_record_approved_at');
     expect(figures).toMatchObject({ rating_of_record_legal_rf: approved.body.lowestLegalRf, rating_of_record_inventory_rf: approved.body.lowestInventoryRf });

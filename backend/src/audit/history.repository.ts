@@ -12,23 +12,42 @@ export interface HistoryRow {
   user_name: string | null;
   span_index: number | null;
   girder_number: number | null;
+  /** 'YYYY-MM-DD': the day of the inspection an event of an inspection or finding is of, or of a rating on file. */
+  day: string | null;
 }
 
 /**
- * The events of a structure and of everything it holds: its own, its spans' and its girders'
- * (matched through the inventory as it is now, so a span's history stays with its structure).
+ * The events of a structure and of everything it holds or that is recorded of it: its own, its
+ * spans' and girders', its inspections' and their findings', its spans' ratings and its ratings
+ * on file from before Spanledger — product.md: every change to inventory, findings and ratings
+ * is kept with who and when. Matched through the register as it is now, so a span's history
+ * stays with its structure.
  */
 function eventsOfStructure(db: Database | Transaction, structureId: number): Knex.QueryBuilder {
+  const ofType = (type: string, alias: string) => (join: Knex.JoinClause) => join.on(db.raw('e.entity_type = ?', [type])).andOn(db.raw(`${alias}.id::text = e.entity_id`));
   return db({ e: 'audit_events' })
     .leftJoin({ u: 'users' }, 'u.id', 'e.user_id')
-    .leftJoin({ sp: 'spans' }, (join) => join.on(db.raw("e.entity_type = 'span'")).andOn(db.raw('sp.id::text = e.entity_id')))
-    .leftJoin({ g: 'girders' }, (join) => join.on(db.raw("e.entity_type = 'girder'")).andOn(db.raw('g.id::text = e.entity_id')))
+    .leftJoin({ sp: 'spans' }, ofType('span', 'sp'))
+    .leftJoin({ g: 'girders' }, ofType('girder', 'g'))
     .leftJoin({ gsp: 'spans' }, 'gsp.id', 'g.span_id')
+    .leftJoin({ i: 'inspections' }, ofType('inspection', 'i'))
+    .leftJoin({ f: 'findings' }, ofType('finding', 'f'))
+    .leftJoin({ fi: 'inspections' }, 'fi.id', 'f.inspection_id')
+    .leftJoin({ fg: 'girders' }, 'fg.id', 'f.girder_id')
+    .leftJoin({ fsp: 'spans' }, 'fsp.id', 'fg.span_id')
+    .leftJoin({ r: 'ratings' }, ofType('rating', 'r'))
+    .leftJoin({ rsp: 'spans' }, 'rsp.id', 'r.span_id')
+    .leftJoin({ pr: 'prior_ratings' }, ofType('prior-rating', 'pr'))
+    .leftJoin({ prsp: 'spans' }, 'prsp.id', 'pr.span_id')
     .where((q) =>
       q
         .where((own) => own.where('e.entity_type', 'structure').andWhere('e.entity_id', String(structureId)))
         .orWhere('sp.structure_id', structureId)
-        .orWhere('gsp.structure_id', structureId),
+        .orWhere('gsp.structure_id', structureId)
+        .orWhere('i.structure_id', structureId)
+        .orWhere('fi.structure_id', structureId)
+        .orWhere('rsp.structure_id', structureId)
+        .orWhere('pr.structure_id', structureId),
     );
 }
 
@@ -44,8 +63,9 @@ export async function findStructureHistory(db: Database | Transaction, structure
       'e.before',
       'e.after',
       'u.display_name as user_name',
-      db.raw('coalesce(sp.span_index, gsp.span_index) as span_index'),
-      'g.girder_number',
+      db.raw('coalesce(sp.span_index, gsp.span_index, fsp.span_index, rsp.span_index, prsp.span_index) as span_index'),
+      db.raw('coalesce(g.girder_number, fg.girder_number) as girder_number'),
+      db.raw("to_char(coalesce(i.inspected_on, fi.inspected_on, pr.approved_on), 'YYYY-MM-DD') as day"),
     )
     .orderBy('e.occurred_at', 'desc')
     .orderBy('e.id', 'desc')

@@ -5,9 +5,24 @@ import { findStructureById } from '../structures/structures.repository';
 import { findStructureHistory, type HistoryRow } from './history.repository';
 
 function subjectOf(row: HistoryRow): string {
-  if (row.entity_type === 'span') return `Span ${row.span_index ?? row.entity_id}`;
-  if (row.entity_type === 'girder') return `Span ${row.span_index ?? '?'}, girder ${row.girder_number ?? row.entity_id}`;
-  return row.entity_type === 'structure' ? 'Structure' : row.entity_type;
+  switch (row.entity_type) {
+    case 'structure':
+      return 'Structure';
+    case 'span':
+      return `Span ${row.span_index ?? row.entity_id}`;
+    case 'girder':
+      return `Span ${row.span_index ?? '?'}, girder ${row.girder_number ?? row.entity_id}`;
+    case 'inspection':
+      return `Inspection of ${row.day ?? row.entity_id}`;
+    case 'finding':
+      return `Finding on span ${row.span_index ?? '?'}, girder ${row.girder_number ?? '?'} (inspection of ${row.day ?? '?'})`;
+    case 'rating':
+      return `Rating ${row.entity_id} of span ${row.span_index ?? '?'}`;
+    case 'prior-rating':
+      return `Rating on file of ${row.day ?? '?'}${row.span_index === null ? '' : ` (span ${row.span_index})`}`;
+    default:
+      return row.entity_type;
+  }
 }
 
 /** Each field the event touched, with its value before and after (a creation has only "after"). */
@@ -18,7 +33,7 @@ function changesOf(row: HistoryRow): HistoryEvent['changes'] {
   return fields.map((field) => ({ field, before: before[field] ?? null, after: after[field] ?? null }));
 }
 
-/** A structure's history, newest first: its own changes and those of its spans and girders. */
+/** A structure's history, newest first: its own changes, its spans' and girders', its inspections' and findings', and its ratings'. */
 export async function structureHistory({ db }: { db: Database }, structureId: number, page: PageQuery): Promise<Page<HistoryEvent>> {
   if (!(await findStructureById(db, structureId))) throw AppError.notFound(`There is no structure with id ${structureId}`);
   const { rows, total } = await findStructureHistory(db, structureId, page);
