@@ -67,6 +67,36 @@ describe('HistoryPanelComponent', () => {
     expect(texts('history-change')[0]).toBe('Length: 98.43 ft → 100.00 ft');
   });
 
+  it('shows what is worth reading of a finding or a rating: labelled fields, positions in the chosen units, no ids or whole runs', async () => {
+    await answer([
+      historyEvent({
+        id: '90',
+        action: 'finding.recorded',
+        entityType: 'finding',
+        subject: 'Finding on span 1, girder 1 (inspection of 2026-11-24)',
+        changes: [
+          { field: 'girderId', before: null, after: 4417 },
+          { field: 'kind', before: null, after: 'spall' },
+          { field: 'fromM', before: null, after: 4 },
+          { field: 'inspectionId', before: null, after: 12 },
+        ],
+      }),
+      historyEvent({
+        id: '91',
+        action: 'rating.run',
+        entityType: 'rating',
+        subject: 'Rating 12 of span 1',
+        changes: [
+          { field: 'run', before: null, after: { vehicleIds: ['hl93'] } },
+          { field: 'lowestLegalRf', before: null, after: 1.08 },
+        ],
+      }),
+    ]);
+
+    expect(texts('history-what')).toEqual(['Finding on span 1, girder 1 (inspection of 2026-11-24) recorded', 'Rating 12 of span 1 run']);
+    expect(texts('history-change')).toEqual(['Kind: — → spall', 'From: — → 4.00 m', 'Lowest legal-load rating factor: — → 1.08']);
+  });
+
   it('asks for the first page, then the next one the user turns to', async () => {
     const first = historyRequest();
     expect(first.request.params.get('limit')).toBe(String(HISTORY_PAGE_SIZE));

@@ -23,6 +23,30 @@ const ACTION_VERBS: Readonly<Record<string, string>> = { changed: 'changed', cre
 
 const WHEN_FORMAT = new Intl.DateTimeFormat('en', { dateStyle: 'medium', timeStyle: 'short' });
 
+/**
+ * What the history shows of an event of something recorded of the structure rather than part of
+ * its inventory — an inspection, a finding, a rating, a rating on file — by its label; the rest
+ * of such an event (ids, a rating's whole run) is for the record, not for reading here. A
+ * position along the span reads as a span length does.
+ */
+const RECORDED_FIELDS: Readonly<Record<string, Readonly<Record<string, { readonly label: string; readonly readAs?: string }>>>> = {
+  inspection: { inspectedOn: { label: 'Inspected on' }, kind: { label: 'Kind' }, state: { label: 'State' } },
+  finding: {
+    kind: { label: 'Kind' },
+    severity: { label: 'Severity' },
+    fromM: { label: 'From', readAs: 'lengthM' },
+    toM: { label: 'To', readAs: 'lengthM' },
+    note: { label: 'Note' },
+  },
+  rating: { state: { label: 'State' }, lowestLegalRf: { label: 'Lowest legal-load rating factor' }, lowestInventoryRf: { label: 'Lowest design-load inventory rating factor' }, comment: { label: 'Comment' } },
+  'prior-rating': {
+    approvedOn: { label: 'Approved on' },
+    lowestLegalRf: { label: 'Lowest legal-load rating factor' },
+    designInventoryRf: { label: 'Design-load inventory rating factor' },
+    sourceNote: { label: 'Source' },
+  },
+};
+
 /** A structure's history, newest first and paged: who changed what, each field from before to after. */
 @Component({
   selector: 'sl-history-panel',
@@ -80,11 +104,11 @@ export class HistoryPanelComponent {
       when: WHEN_FORMAT.format(new Date(event.occurredAt)),
       who: event.userName ?? 'Data load',
       what: `${event.subject} ${verbOf(event.action)}`,
-      changes: event.changes.map((change) => ({
+      changes: readableChanges(event).map(({ change, label, readAs }) => ({
         field: change.field,
-        label: fieldLabel(change.field),
-        before: describeFieldValue(change.field, change.before, system),
-        after: describeFieldValue(change.field, change.after, system),
+        label,
+        before: describeFieldValue(readAs, change.before, system),
+        after: describeFieldValue(readAs, change.after, system),
       })),
     }));
   });
@@ -93,6 +117,16 @@ export class HistoryPanelComponent {
     this.pageSize.set(page.pageSize);
     this.pageIndex.set(page.pageIndex);
   }
+}
+
+/** The changes of an event as the history shows them: every inventory field, or the fields worth reading of something recorded. */
+function readableChanges(event: HistoryEvent) {
+  const recorded = RECORDED_FIELDS[event.entityType];
+  if (!recorded) return event.changes.map((change) => ({ change, label: fieldLabel(change.field), readAs: change.field }));
+  return event.changes.flatMap((change) => {
+    const shown = recorded[change.field];
+    return shown ? [{ change, label: shown.label, readAs: shown.readAs ?? change.field }] : [];
+  });
 }
 
 function verbOf(action: string): string {
