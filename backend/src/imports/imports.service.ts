@@ -222,10 +222,11 @@ async function writeCommit(db: Database, trx: Transaction, user: SignedInUser, r
  */
 async function checkedRowsOf(db: Database, trx: Transaction, importId: number): Promise<CheckedRows> {
   const keys = await findImportRowPageKeys(trx, importId);
+  const rowsOn = (pages: typeof keys) => pages.reduce((sum, key) => sum + key.rowCount, 0);
   return {
-    total: keys.reduce((sum, key) => sum + key.rowCount, 0),
+    total: rowsOn(keys),
     ...(await findKeptByCheck(trx, importId)),
-    rowCountOf: (template) => keys.reduce((sum, key) => sum + (key.template === template ? key.rowCount : 0), 0),
+    rowCountOf: (template) => rowsOn(keys.filter((key) => key.template === template)),
     pagesOf: (template) => pagesReadAhead(keys.filter((key) => key.template === template).map((key) => () => findImportRowPage(db, importId, key))),
   };
 }
