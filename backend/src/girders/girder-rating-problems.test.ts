@@ -1,6 +1,7 @@
 import { girderRecord, type GirderRecord } from '../../../shared/src/girder-record';
 import type { StoredSpan } from './girder-calc-file';
-import { girderRatingProblems } from './girders.service';
+import type { GirderTypeRow } from './girders.repository';
+import { girderRatingProblems, girderRecordDigest } from './girders.service';
 
 // A plain rectangular girder of the kind the inventory holds; the figures are common practice, no source.
 const record: GirderRecord = girderRecord.parse({
@@ -63,5 +64,21 @@ describe('girderRatingProblems', () => {
     expect(girderRatingProblems(tooHigh, undefined, span, 2, 0, passed)).toHaveLength(1);
     expect(passed.size).toBe(0);
     expect(girderRatingProblems(tooHigh, undefined, span, 2, 0, passed)).toHaveLength(1);
+  });
+
+  it('knows a girder by the digest of its record kept from an earlier check, and only with the catalogue type that record named', () => {
+    // Two catalogue types of one section: a girder of either rates alike, yet each is its own record.
+    const typeOf = (id: number): GirderTypeRow => ({ id, name: `Type ${id}`, section: { shape: 'rectangle', widthMm: 500, depthMm: 1000 }, source: 'common practice, no source', version: 1, girder_count: '0' });
+    const ofType = (id: number): GirderRecord => ({ ...record, girderTypeId: id, customSection: null });
+    const passed = new Set<string>();
+    const keptByCheck = girderRecordDigest(ofType(1));
+    expect(girderRatingProblems(ofType(1), typeOf(1), span, 2, 0, passed)).toEqual([]);
+    expect(passed.size).toBe(1);
+    // The commit, with the record's digest kept by the check: known.
+    girderRatingProblems(ofType(1), typeOf(1), span, 2, 0, passed, keptByCheck);
+    expect(passed.size).toBe(1);
+    // The catalogue now resolves the row's type name to another type: the kept digest does not stand for this record.
+    girderRatingProblems(ofType(2), typeOf(2), span, 2, 0, passed, keptByCheck);
+    expect(passed.size).toBe(2);
   });
 });

@@ -165,10 +165,19 @@ function rateFileOf(record: GirderRecord, typeSection: Record<string, unknown> |
  * Checks the girder the way a rating will read it: assembles the rating calculation file from the
  * record and its span and lets the engine's own schema judge it, naming each problem by its
  * place in the record. A girder that passes can always be rated. `passed` holds what has passed
- * already (`rateInputsDigest`): such a girder is not checked again.
+ * already (`rateInputsDigest`): such a girder is not checked again. `recordDigest` is the record's
+ * `girderRecordDigest` when the caller has it already.
  */
-function assertRateable(record: GirderRecord, typeSection: Record<string, unknown> | null, span: StoredSpan, girderNumber: number, skewDeg: number, passed?: Set<string>): void {
-  const key = passed ? rateInputsDigest(record, typeSection, span, girderNumber, skewDeg) : null;
+function assertRateable(
+  record: GirderRecord,
+  typeSection: Record<string, unknown> | null,
+  span: StoredSpan,
+  girderNumber: number,
+  skewDeg: number,
+  passed?: Set<string>,
+  recordDigest?: string | null,
+): void {
+  const key = passed ? rateInputsDigest(record, recordDigest === undefined ? girderRecordDigest(record) : recordDigest, typeSection, span, girderNumber, skewDeg) : null;
   if (key !== null && passed!.has(key)) return;
   const parsed = parseRateFile(rateFileOf(record, typeSection, span, girderNumber, skewDeg));
   if (!parsed.ok) throw AppError.invalidFields(parsed.issues.map((issue) => ({ field: recordPathOf(issue.path, record), message: issue.message })));
@@ -176,19 +185,54 @@ function assertRateable(record: GirderRecord, typeSection: Record<string, unknow
 }
 
 /**
- * Everything `rateFileOf` makes a girder's calculation file of — record, catalogue section, the
- * span's fields the engine reads, girder number, skew — with the engine's version, as one
- * SHA-256 digest: the engine's check is a pure function of the file, and the girders of a span,
- * and the spans of a structure, are often alike, so an import checks each distinct girder once.
- * The section and the span are shared by many girders, so their text is worked out once per
- * object. Null when JSON text would not say all of an input (see `isPlainJson`): then the girder
- * is simply checked.
+ * The girder record's part of what its calculation file is made of — all of it, strand rows and
+ * catalogue type id included — as a SHA-256 digest of its JSON text; null when that text would
+ * not say all of it (see `isPlainJson`). An import's check works it out once a girder and keeps
+ * it with the row, so that the commit knows the girder without writing its record as text again.
  */
-function rateInputsDigest(record: GirderRecord, typeSection: Record<string, unknown> | null, span: StoredSpan, girderNumber: number, skewDeg: number): string | null {
-  const sectionText = sharedJsonText(typeSection);
-  const spanText = storedSpanText(span);
-  if (sectionText === null || spanText === null || !isPlainJson(record) || !isPlainJson(girderNumber) || !isPlainJson(skewDeg)) return null;
-  return hash('sha256', `${ENGINE_VERSION}|${girderNumber}|${skewDeg}|${sectionText}|${spanText}|${JSON.stringify(record)}`, 'base64');
+export function girderRecordDigest(record: GirderRecord): string | null {
+  return isPlainJson(record) ? hash('sha256', JSON.stringify(record), 'base64') : null;
+}
+
+/**
+ * Everything `rateFileOf` makes a girder's calculation file of — record (by `girderRecordDigest`),
+ * catalogue section, the span's fields the engine reads, girder number, skew — with the engine's
+ * version, as one SHA-256 digest: the engine's check is a pure function of the file, and the
+ * girders of a span, and the spans of a structure, are often alike, so an import checks each
+ * distinct girder once. The record's catalogue type id is named beside its digest, so a digest
+ * kept by an earlier check stands only for a record with the same type. Null when JSON text would
+ * not say all of an input: then the girder is simply checked.
+ */
+function rateInputsDigest(
+  record: GirderRecord,
+  recordDigest: string | null,
+  typeSection: Record<string, unknown> | null,
+  span: StoredSpan,
+  girderNumber: number,
+  skewDeg: number,
+): string | null {
+  const placeDigest = sectionAndSpanDigest(typeSection, span);
+  if (placeDigest === null || recordDigest === null || !isPlainJson(girderNumber) || !isPlainJson(skewDeg)) return null;
+  return hash('sha256', `${girderNumber}|${skewDeg}|${record.girderTypeId}|${placeDigest}|${recordDigest}`, 'base64');
+}
+
+const sectionAndSpanDigestOf = new WeakMap<StoredSpan, Map<object | null, string | null>>();
+
+/**
+ * The engine's version, the catalogue section and the span's fields the engine reads, as one
+ * digest, worked out once for each section and span object: many girders share them.
+ */
+function sectionAndSpanDigest(typeSection: Record<string, unknown> | null, span: StoredSpan): string | null {
+  let ofSpan = sectionAndSpanDigestOf.get(span);
+  if (!ofSpan) sectionAndSpanDigestOf.set(span, (ofSpan = new Map()));
+  let digest = ofSpan.get(typeSection);
+  if (digest === undefined) {
+    const sectionText = sharedJsonText(typeSection);
+    const spanText = storedSpanText(span);
+    digest = sectionText === null || spanText === null ? null : hash('sha256', `${ENGINE_VERSION}|${sectionText}|${spanText}`, 'base64');
+    ofSpan.set(typeSection, digest);
+  }
+  return digest;
 }
 
 const jsonTextOf = new WeakMap<object, string | null>();
@@ -226,7 +270,8 @@ function storedSpanText(span: StoredSpan): string | null {
  * What would stop the API writing this girder on this span, each problem at its place in the
  * record: a catalogue type whose section lacks a dimension the record overrides, or what the
  * engine finds wrong with the rating calculation file. Empty when the girder can be rated. An
- * import's check asks this of every girder it would write, with the span as the file leaves it.
+ * import's check asks this of every girder it would write, with the span as the file leaves it,
+ * and keeps each girder's `recordDigest` for its commit.
  */
 export function girderRatingProblems(
   record: GirderRecord,
@@ -235,10 +280,11 @@ export function girderRatingProblems(
   girderNumber: number,
   skewDeg: number,
   rateableGirders: Set<string>,
+  recordDigest: string | null = girderRecordDigest(record),
 ): readonly InvalidField[] {
   try {
     const typeSection = record.girderTypeId === null ? null : checkedTypeSection(type, record);
-    assertRateable(record, typeSection, span, girderNumber, skewDeg, rateableGirders);
+    assertRateable(record, typeSection, span, girderNumber, skewDeg, rateableGirders, recordDigest);
     return [];
   } catch (error) {
     if (!(error instanceof AppError)) throw error;
@@ -340,6 +386,8 @@ export interface NewGirder {
   readonly spanId: number;
   readonly girderNumber: number;
   readonly record: GirderRecord;
+  /** The record's `girderRecordDigest`, when the caller has it (an import's check kept it with the row). */
+  readonly recordDigest?: string | null;
 }
 
 /**
@@ -463,13 +511,13 @@ function checkedNewGirder(
   user: SignedInUser,
   span: (SpanRow & { district: string; skew_deg: number }) | undefined,
   types: ReadonlyMap<number, GirderTypeRow>,
-  { spanId, girderNumber, record }: NewGirder,
+  { spanId, girderNumber, record, recordDigest }: NewGirder,
   rateableGirders: Set<string>,
 ): GirderInsert {
   if (!span) throw AppError.notFound(`There is no span with id ${spanId}`);
   assertMayEditIn(user, span.district);
   const typeSection = record.girderTypeId === null ? null : checkedTypeSection(types.get(record.girderTypeId), record);
-  assertRateable(record, typeSection, span, girderNumber, span.skew_deg, rateableGirders);
+  assertRateable(record, typeSection, span, girderNumber, span.skew_deg, rateableGirders, recordDigest);
   const written = girderColumnsOf(record);
   return { spanId, girderNumber, columns: written.columns, strandRows: written.strandRows };
 }

@@ -25,7 +25,7 @@ import type { Database, Transaction } from '../db/database';
 import { toGirderRecord } from '../girders/girder-record';
 import type { StoredSpan } from '../girders/girder-calc-file';
 import { findGirdersOfSpans, findGirderTypes, findStrandRowsOfGirders, type GirderRow, type GirderTypeRow } from '../girders/girders.repository';
-import { girderRatingProblems } from '../girders/girders.service';
+import { girderRatingProblems, girderRecordDigest } from '../girders/girders.service';
 import { findFindingsOfInspection, findInspectionsOfStructures, type FindingRow, type InspectionRow } from '../inspections/inspections.repository';
 import { findingsMisfitOnGirder, importedFindingOutcomeInDraft, placeOfImportedFindings } from '../inspections/inspections.service';
 import { findPriorRatingsOfStructures, type PriorRatingRow } from '../prior-ratings/prior-ratings.repository';
@@ -50,6 +50,8 @@ export interface UploadJudgement {
   readonly rateableGirders: ReadonlySet<string>;
   /** How many girders the file gives each span, by span key: what the commit creates a new span with. */
   readonly girdersPerSpan: ReadonlyMap<string, number>;
+  /** Each girders row's `girderRecordDigest`, kept with the row for the commit's own check. */
+  readonly recordDigests: ReadonlyMap<AnyConvertedRow, string>;
 }
 
 /** Who may import each template (product.md, permission matrix): inventory by its editors, findings by inspectors and raters, prior ratings by those who run ratings — they are ratings of record. */
@@ -271,7 +273,9 @@ function judgeGirder(row: ConvertedRow<'girders'>, register: Register, inFile: F
   }
   const fileStrandRows = inFile.strandRowRows.get(girderKeyOf(row.body));
   const record: GirderRecord = { ...row.body.record, girderTypeId, strandRows: fileStrandRows ? fileStrandRows.map((each) => each.body.strandRow) : storedStrandRows(register, stored) };
-  const unrateable = ratingProblems(row, record, register, inFile);
+  const recordDigest = girderRecordDigest(record);
+  if (recordDigest !== null) inFile.recordDigests.set(row, recordDigest);
+  const unrateable = ratingProblems(row, record, register, inFile, recordDigest);
   if (unrateable.length > 0) return refused(...unrateable);
   if (!stored) return ok('create');
   const { strandRows: _strandRows, ...storedRecord } = toGirderRecord(stored, register.strandRows.get(stored.id) ?? []);
@@ -287,11 +291,17 @@ const storedStrandRows = (register: Register, stored: GirderRow | undefined): St
  * preview names what would otherwise fail the commit. A file's girders are often alike, so a
  * girder already passed is known by its digest (`inFile.rateableGirders`).
  */
-function ratingProblems(row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows'>, record: GirderRecord, register: Register, inFile: FileFacts): ImportProblem[] {
+function ratingProblems(
+  row: ConvertedRow<'girders'> | ConvertedRow<'strand-rows'>,
+  record: GirderRecord,
+  register: Register,
+  inFile: FileFacts,
+  recordDigest: string | null = girderRecordDigest(record),
+): ImportProblem[] {
   const span = spanAsFileLeavesIt(register, inFile, row.body);
   if (!span) return [];
   const type = record.girderTypeId === null ? undefined : register.girderTypes.get(record.girderTypeId);
-  const fields = girderRatingProblems(record, type, span, row.body.girderNumber, skewAsFileLeavesIt(register, inFile, row.body.structureNumber), inFile.rateableGirders);
+  const fields = girderRatingProblems(record, type, span, row.body.girderNumber, skewAsFileLeavesIt(register, inFile, row.body.structureNumber), inFile.rateableGirders, recordDigest);
   return fields.map((field) => girderProblemAt(row, field, inFile.strandRowRows.get(girderKeyOf(row.body))));
 }
 
@@ -374,6 +384,8 @@ interface FileFacts {
   readonly girdersPerSpan: ReadonlyMap<string, number>;
   /** Girders the engine has passed in this check, by digest. */
   readonly rateableGirders: Set<string>;
+  /** The digest of each girders row's record as the commit writes it (`girderRecordDigest`). */
+  readonly recordDigests: Map<AnyConvertedRow, string>;
   /** Spans as the file leaves them, by span key, as `spanAsFileLeavesIt` works them out. */
   readonly spansAsLeft: Map<string, StoredSpan | null>;
 }
@@ -491,7 +503,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
   const structuresInFile = new Map(rows.flatMap((row) => (row.template === 'structures' ? [[row.body.structureNumber, row.body.district] as const] : [])));
   const spansInFile = new Set(rows.flatMap((row) => (row.template === 'spans' ? [spanKeyOf(row.body)] : [])));
   const girdersInFile = new Set(rows.flatMap((row) => (row.template === 'girders' ? [girderKeyOf(row.body)] : [])));
-  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, ...rowsByKey(rows), rateableGirders: new Set(), spansAsLeft: new Map() };
+  const inFile: FileFacts = { structures: new Set(structuresInFile.keys()), spans: spansInFile, girders: girdersInFile, ...rowsByKey(rows), rateableGirders: new Set(), recordDigests: new Map(), spansAsLeft: new Map() };
   const misfits = await misfitsOnStoredGirders(db, rows, register, inFile);
   const counts: Partial<Record<ImportTemplateName, { rows: number; create: number; update: number; unchanged: number }>> = {};
   const problems: ImportProblem[] = [];
@@ -516,7 +528,7 @@ export async function judgeAgainstRegister(db: Db, user: SignedInUser, rows: rea
   }
   const strandCounts = counts['strand-rows'];
   for (const [key, strandRows] of strandRowsOfGirder) strandCounts![strandRowsOutcome(register, key, strandRows)] += 1;
-  return { counts, problems, rows, rateableGirders: inFile.rateableGirders, girdersPerSpan: inFile.girdersPerSpan };
+  return { counts, problems, rows, rateableGirders: inFile.rateableGirders, girdersPerSpan: inFile.girdersPerSpan, recordDigests: inFile.recordDigests };
 }
 
 /** A girder's strand rows in the file against its stored ones: they replace them as a whole. */

@@ -12,7 +12,7 @@ import {
 } from '../../../shared/src';
 import type { Transaction } from '../db/database';
 import { inChunks } from '../db/many-created';
-import { ROWS_PER_PAGE } from './imports.repository';
+import { ROWS_PER_PAGE, type KeptRow } from './imports.repository';
 import { toGirderRecord } from '../girders/girder-record';
 import { findGirderById, findGirderNumbersOfSpans, findGirdersOfSpans, findGirderTypes, findStrandRows } from '../girders/girders.repository';
 import { changeGirder, createGirder, createGirdersPageByPage, type GirdersPageWritten, type NewGirder } from '../girders/girders.service';
@@ -51,7 +51,7 @@ class WrittenRecords {
 export interface CheckedRows {
   readonly total: number;
   rowCountOf(template: ImportTemplateName): number;
-  pagesOf(template: ImportTemplateName): AsyncIterable<readonly AnyConvertedRow[]>;
+  pagesOf(template: ImportTemplateName): AsyncIterable<readonly KeptRow[]>;
   /** Digests of the girders the engine passed in the check (`girderRatingProblems`). */
   readonly rateableGirders: ReadonlySet<string>;
   /** How many girders the file gives each span, by span key; null when the check did not keep it, and the commit counts them. */
@@ -265,8 +265,11 @@ async function spansOfFileGirders(writer: Writer): Promise<number[]> {
   return [...new Set(keys.flatMap((key) => writer.written.spans.get(key) ?? []))];
 }
 
+/** A girders row as its page keeps it, with its record's digest when the check worked one out. */
+type KeptGirderRow = ConvertedRow<'girders'> & { readonly recordDigest?: string };
+
 /** A page of girders rows as the girders new to the register they add; a row refused here is named, one of a stored girder left for `writeGirder`. */
-function newGirdersOf(writer: Writer, page: readonly ConvertedRow<'girders'>[], isStored: (row: ConvertedRow<'girders'>) => boolean, refuse: Refuse) {
+function newGirdersOf(writer: Writer, page: readonly KeptGirderRow[], isStored: (row: ConvertedRow<'girders'>) => boolean, refuse: Refuse) {
   const rows: ConvertedRow<'girders'>[] = [];
   const girders: NewGirder[] = [];
   for (const row of page) {
@@ -274,7 +277,8 @@ function newGirdersOf(writer: Writer, page: readonly ConvertedRow<'girders'>[], 
     try {
       const spanRowId = writer.written.spans.get(spanKey(row.body));
       if (spanRowId === undefined) throw AppError.invalidFields([{ field: 'span_index', message: `structure ${row.body.structureNumber} has no span ${row.body.spanIndex}` }]);
-      girders.push({ spanId: spanRowId, girderNumber: row.body.girderNumber, record: recordOf(writer, row, writer.facts.strandRowsOfGirder.get(girderKey(row.body)) ?? []) });
+      const record = recordOf(writer, row, writer.facts.strandRowsOfGirder.get(girderKey(row.body)) ?? []);
+      girders.push({ spanId: spanRowId, girderNumber: row.body.girderNumber, record, recordDigest: row.recordDigest });
       rows.push(row);
     } catch (error) {
       if (!(error instanceof AppError)) throw error;
@@ -299,7 +303,7 @@ async function writeGirderRows(writer: Writer, checked: CheckedRows, refuse: Ref
   const rowsOfPage = new Map<readonly NewGirder[], readonly ConvertedRow<'girders'>[]>();
   let changesToWrite = false;
   async function* newGirderPages() {
-    for await (const page of checked.pagesOf('girders') as AsyncIterable<readonly ConvertedRow<'girders'>[]>) {
+    for await (const page of checked.pagesOf('girders') as AsyncIterable<readonly KeptGirderRow[]>) {
       const fresh = newGirdersOf(writer, page, isStored, refuse);
       changesToWrite ||= fresh.rows.length < page.length;
       rowsOfPage.set(fresh.girders, fresh.rows);

@@ -104,13 +104,21 @@ export interface ImportRowPageKey {
   readonly page: number;
 }
 
-/** The checked rows, each template's in file order, kept in pages so a commit writes exactly what was checked. */
-export async function insertImportRowPages(trx: Db, importId: number, rows: readonly AnyConvertedRow[]): Promise<void> {
-  const byTemplate = new Map<ImportTemplateName, AnyConvertedRow[]>();
+/** A checked row as its page keeps it: a girders row with its record's digest (`girderRecordDigest`) when the check worked one out. */
+export type KeptRow = AnyConvertedRow & { readonly recordDigest?: string };
+
+/**
+ * The checked rows, each template's in file order, kept in pages so a commit writes exactly what
+ * was checked; a girders row keeps the digest of its record (`recordDigests`).
+ */
+export async function insertImportRowPages(trx: Db, importId: number, rows: readonly AnyConvertedRow[], recordDigests: ReadonlyMap<AnyConvertedRow, string>): Promise<void> {
+  const byTemplate = new Map<ImportTemplateName, KeptRow[]>();
   for (const row of rows) {
+    const recordDigest = recordDigests.get(row);
+    const kept: KeptRow = recordDigest === undefined ? row : { ...row, recordDigest };
     const ofTemplate = byTemplate.get(row.template);
-    if (ofTemplate) ofTemplate.push(row);
-    else byTemplate.set(row.template, [row]);
+    if (ofTemplate) ofTemplate.push(kept);
+    else byTemplate.set(row.template, [kept]);
   }
   // Each page is sent without waiting for the one before: the next is made into JSON while the database stores this one.
   const writes = new WritesInFlight();
@@ -133,9 +141,9 @@ export async function findImportRowPageKeys(db: Db, importId: number): Promise<(
   return db('import_row_pages').where({ import_id: importId }).orderBy(['template', 'page']).select('template', 'page', 'row_count as rowCount');
 }
 
-export async function findImportRowPage(db: Db, importId: number, { template, page }: ImportRowPageKey): Promise<AnyConvertedRow[]> {
+export async function findImportRowPage(db: Db, importId: number, { template, page }: ImportRowPageKey): Promise<KeptRow[]> {
   const row = await db('import_row_pages').where({ import_id: importId, template, page }).first('rows');
-  return (row?.rows as AnyConvertedRow[] | undefined) ?? [];
+  return (row?.rows as KeptRow[] | undefined) ?? [];
 }
 
 /** What the import's check kept for its commit: digests of the girders the engine passed, and the file's girders per span (null for a check kept before it was). */

@@ -123,7 +123,7 @@ export async function checkImport({ db, user }: Writer, file: ReceivedImportFile
   const id = await withTransaction(db, async (trx) => {
     const inserted = await insertCheckedImport(trx, { file_name: file.fileName, file_kind: fileKind, byte_size: file.byteSize, content_sha256: sha256, counts, problems, ...keptForCommit(problems.length === 0 ? judged : null) }, user.id);
     // Only a clean check can be committed, so only then are its rows worth keeping.
-    if (problems.length === 0) await insertImportRowPages(trx, inserted, read.rows);
+    if (problems.length === 0) await insertImportRowPages(trx, inserted, read.rows, judged.recordDigests);
     await recordAuditEvent({ db: trx, user, action: 'import.checked', entity: { type: 'import', id: inserted }, after: { fileName: file.fileName, contentSha256: sha256, counts, problemCount: problems.length } });
     return inserted;
   });
