@@ -214,16 +214,43 @@ function girderValues(columns: GirderColumns): Record<string, unknown> {
 }
 
 async function insertStrandRows(trx: Transaction, girderId: number, strandRows: readonly StrandRowRecord[], userId: number): Promise<void> {
-  await insertStrandRowsOfGirders(trx, [{ girderId, strandRows }], userId);
+  await insertStrandRowsOfGirders(trx, [girderId], [{ strandRows }], userId);
 }
 
-/** Strand rows of many girders in a few statements, each girder's in the order given. */
-async function insertStrandRowsOfGirders(trx: Transaction, girders: readonly { girderId: number; strandRows: readonly StrandRowRecord[] }[], userId: number): Promise<void> {
-  const values: Record<string, unknown>[] = [];
-  for (const { girderId, strandRows } of girders) {
-    for (let rowOrder = 0; rowOrder < strandRows.length; rowOrder += 1) values.push({ ...strandRows[rowOrder], girder_id: girderId, row_order: rowOrder, created_by: userId, updated_by: userId });
-  }
-  for (const chunk of inChunks(values, ROWS_PER_INSERT)) await insertJsonRows(trx, 'strand_rows', chunk);
+/** Strand rows of many girders (ids at the same index) in a few statements, each girder's in the order given. */
+async function insertStrandRowsOfGirders(trx: Transaction, girderIds: readonly number[], girders: readonly { strandRows: readonly StrandRowRecord[] }[], userId: number): Promise<void> {
+  const values: StrandRowInsertRow[] = [];
+  girders.forEach(({ strandRows }, at) => {
+    for (let rowOrder = 0; rowOrder < strandRows.length; rowOrder += 1) values.push(strandRowInsertRow(girderIds[at]!, rowOrder, strandRows[rowOrder]!, userId));
+  });
+  await Promise.all([...inChunks(values, ROWS_PER_INSERT)].map((chunk) => insertJsonRows(trx, 'strand_rows', chunk)));
+}
+
+type StrandRowInsertRow = StrandRowRecord & { girder_id: number; row_order: number; created_by: number; updated_by: number };
+
+/**
+ * A strand row as its insert writes it. Each column is named, not spread from the record: rows of
+ * one shape are quicker to build and to write as JSON, and a bulk import writes tens of thousands.
+ */
+function strandRowInsertRow(girderId: number, rowOrder: number, row: StrandRowRecord, userId: number): StrandRowInsertRow {
+  return {
+    girder_id: girderId,
+    row_order: rowOrder,
+    row_key: row.row_key,
+    y_mm: row.y_mm,
+    strand_count: row.strand_count,
+    x_mm: row.x_mm,
+    strand_area_mm2: row.strand_area_mm2,
+    strand_diameter_mm: row.strand_diameter_mm,
+    fpu_mpa: row.fpu_mpa,
+    fpy_mpa: row.fpy_mpa,
+    eps_mpa: row.eps_mpa,
+    fpe_mpa: row.fpe_mpa,
+    bonded: row.bonded,
+    unbonded_length_mm: row.unbonded_length_mm,
+    created_by: userId,
+    updated_by: userId,
+  };
 }
 
 export async function insertGirder(trx: Transaction, spanId: number, girderNumber: number, columns: GirderColumns, strandRows: readonly StrandRowRecord[], userId: number): Promise<number> {
@@ -242,23 +269,48 @@ export interface GirderInsert {
 /** Rows per insert statement: a few megabytes of JSON text; as many as the service's step of girders (`GIRDERS_PER_STEP`). */
 const ROWS_PER_INSERT = 2500;
 
-/** Inserts girders with their strand rows in a few statements; gives back their ids in the order given. */
+/**
+ * Inserts girders with their strand rows in a few statements; gives back their ids in the order
+ * given. The ids are taken from the girders' sequence first, so that the strand rows are made
+ * while the database writes the girders, and nothing written is read back.
+ */
 export async function insertGirders(trx: Transaction, girders: readonly GirderInsert[], userId: number): Promise<number[]> {
-  const ids: number[] = [];
-  for (const chunk of inChunks(girders, ROWS_PER_INSERT)) {
-    const inserted = await insertJsonRows<{ id: number; span_id: number; girder_number: number }>(
-      trx,
-      'girders',
-      chunk.map((girder) => ({ ...girder.columns, span_id: girder.spanId, girder_number: girder.girderNumber, created_by: userId, updated_by: userId })),
-      { returning: ['id', 'span_id', 'girder_number'], parsedAs: 'jsonb' },
-    );
-    // Matched by (span, number), which is unique, rather than trusting the order RETURNING gives.
-    const idOf = new Map(inserted.map((row) => [`${row.span_id}/${row.girder_number}`, row.id]));
-    const chunkIds = chunk.map((girder) => idOf.get(`${girder.spanId}/${girder.girderNumber}`)!);
-    await insertStrandRowsOfGirders(trx, chunk.map((girder, index) => ({ girderId: chunkIds[index]!, strandRows: girder.strandRows })), userId);
-    ids.push(...chunkIds);
-  }
+  if (girders.length === 0) return [];
+  const ids = await takeGirderIds(trx, girders.length);
+  const girderRows = girders.map((girder, at) => girderInsertRow(ids[at]!, girder, userId));
+  await Promise.all([
+    ...[...inChunks(girderRows, ROWS_PER_INSERT)].map((chunk) => insertJsonRows(trx, 'girders', chunk, { parsedAs: 'jsonb' })),
+    insertStrandRowsOfGirders(trx, ids, girders, userId),
+  ]);
   return ids;
+}
+
+/** As many new girder ids as asked for, from the sequence the girders' own ids come from. */
+async function takeGirderIds(trx: Transaction, count: number): Promise<number[]> {
+  const { rows } = await trx.raw<{ rows: { ids: string }[] }>("select string_agg(nextval(pg_get_serial_sequence('girders', 'id'))::text, ',') as ids from generate_series(1, ?)", [count]);
+  return rows[0]!.ids.split(',').map(Number);
+}
+
+/** A girder as its insert writes it, every column named (see `strandRowInsertRow`). */
+function girderInsertRow(id: number, { spanId, girderNumber, columns }: GirderInsert, userId: number) {
+  return {
+    id,
+    span_id: spanId,
+    girder_number: girderNumber,
+    position: columns.position,
+    girder_type_id: columns.girder_type_id,
+    section: columns.section,
+    section_overrides: columns.section_overrides,
+    concrete: columns.concrete,
+    deck_concrete: columns.deck_concrete,
+    tensioning: columns.tensioning,
+    losses: columns.losses,
+    profiles: columns.profiles,
+    debonding: columns.debonding,
+    bars: columns.bars,
+    created_by: userId,
+    updated_by: userId,
+  } satisfies Record<keyof GirderColumns, unknown> & Record<string, unknown>;
 }
 
 /** Writes the girder and replaces its strand rows as a whole, when the row still has the version read. */
