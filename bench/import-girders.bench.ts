@@ -5,9 +5,10 @@
  * identity provider uploads it to the real server (`POST /api/imports`, answered when checked) and
  * commits it (`POST /api/imports/:id/commit`, answered when written, or 202 and polled until it
  * leaves `committing`). Prints the time to check and to commit, rows per second end to end and the
- * server's peak resident memory against the targets, how busy the machine was, and what the
- * register holds afterwards; asserts no timing, but a refused or failed import ends it non-zero
- * with its first problems. Run through `npm run bench`.
+ * server's peak resident memory against the targets, how busy the machine was, what the
+ * register holds afterwards and how long a new structure's history takes to answer; asserts no
+ * timing, but a refused or failed import ends it non-zero with its first problems. Run through
+ * `npm run bench`.
  *
  * BENCH_IMPORT_GIRDERS=2000 makes a smaller file (a multiple of 50) while developing;
  * BENCH_CPU_PROFILE_DIR=<folder> has the server write a V8 CPU profile there when it stops.
@@ -127,6 +128,36 @@ function watchedProcesses(stack: BenchStack): WatchedProcesses {
 
 const met = (ok: boolean) => (ok ? 'met' : 'NOT met');
 
+/** Requests of a structure's history timed after the import. */
+const HISTORY_REQUESTS = 5;
+
+/**
+ * How long a structure's history (`GET /api/structures/:id/history`, its first page) takes once the
+ * import has added its tens of thousands of events: the history is looked up by subject, so it
+ * should not grow with the whole history's size.
+ */
+async function timeStructureHistory(http: SignedInHttp, databaseUrl: string, structureNumber: string): Promise<void> {
+  const db = createDatabase(databaseUrl, { min: 0, max: 1 });
+  try {
+    const structure = (await db('structures').where({ structure_number: structureNumber }).first('id')) as { id: number };
+    const [{ events }] = (await db('audit_events').count({ events: '*' })) as [{ events: string }];
+    const times: number[] = [];
+    for (let request = 0; request < HISTORY_REQUESTS; request += 1) {
+      const started = performance.now();
+      const answer = await http.get(`/api/structures/${structure.id}/history`);
+      if (answer.status !== 200) throw new Error(`the history of structure ${structureNumber} answered ${answer.status}: ${answer.text.slice(0, 200)}`);
+      times.push(performance.now() - started);
+    }
+    const sorted = [...times].sort((a, b) => a - b);
+    console.log(
+      `  structure ${structureNumber}'s history, first page, with ${events} events in the whole history: ${Math.round(sorted[Math.floor(sorted.length / 2)]!)} ms ` +
+        `(median of ${HISTORY_REQUESTS}; ${Math.round(sorted[0]!)}–${Math.round(sorted[sorted.length - 1]!)} ms)`,
+    );
+  } finally {
+    await db.destroy();
+  }
+}
+
 /** The phase's machine load, and the CPU time each watched group spent in it: on a shared machine that says more than the wall-clock time. */
 function describePhaseLoad(load: MachineLoad, seconds: number): string[] {
   const cpu = [...load.groups].map(([name, use]) => `${name} ${(use.cores * seconds).toFixed(1)} s`).join(', ');
@@ -198,4 +229,5 @@ runBenchmark(async (cleanUp) => {
       (asExpected ? 'as the file says' : `NOT as the file says (${expected.structures}, ${expected.spans}, ${expected.girders}, ${expected.strandRows})`),
   );
   if (!asExpected) throw new Error('the committed import did not leave the register holding what the file says');
+  await timeStructureHistory(http, stack.databaseUrl, file.structureNumbers[0]!);
 });
