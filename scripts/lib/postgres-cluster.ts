@@ -89,10 +89,6 @@ async function initialiseIfNew(settings: ClusterSettings): Promise<boolean> {
 }
 
 /**
- * Starts the cluster on 127.0.0.1 (creating it first if needed). A cluster already running on
- * the same folder is reused; a port held by anything else is reported plainly.
- */
-/**
  * Memory for writing: an import commits a few hundred megabytes of rows and history in one
  * transaction, and with PostgreSQL's defaults (128 MB of shared buffers, WAL buffers of 1/32 of
  * them) its one backend spends much of that writing out pages and WAL itself (`npm run bench`,
@@ -100,6 +96,10 @@ async function initialiseIfNew(settings: ClusterSettings): Promise<boolean> {
  */
 const BULK_WRITE_SETTINGS = ['-c shared_buffers=512MB', '-c wal_buffers=64MB'];
 
+/**
+ * Starts the cluster on 127.0.0.1 (creating it first if needed). A cluster already running on
+ * the same folder is reused; a port held by anything else is reported plainly.
+ */
 export async function startCluster(settings: ClusterSettings): Promise<{ created: boolean; alreadyRunning: boolean }> {
   const created = await initialiseIfNew(settings);
   if (await isRunning(settings)) return { created, alreadyRunning: true };

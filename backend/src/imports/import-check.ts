@@ -296,7 +296,7 @@ function ratingProblems(
   record: GirderRecord,
   register: Register,
   inFile: FileFacts,
-  recordDigest: string | null = girderRecordDigest(record),
+  recordDigest?: string | null,
 ): ImportProblem[] {
   const span = spanAsFileLeavesIt(register, inFile, row.body);
   if (!span) return [];
